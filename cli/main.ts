@@ -1,0 +1,49 @@
+/**
+ * crystint command-line entry point: dispatches to one module per command.
+ *
+ * @module
+ */
+import { colorCommand } from "./color.ts";
+import { EXIT, log, UsageError } from "./_shared.ts";
+
+const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
+
+Usage:
+  crystint <command> [options]
+
+Commands:
+  color     CIE colour (XYZ, xy, L*a*b*, LCh) of spectra under chosen illuminants
+
+Run "crystint <command> --help" for the options of a command.
+Colour numbers are measurement aids, not a grading or appraisal.
+`;
+
+const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
+  color: colorCommand,
+};
+
+/** Runs crystint with the given arguments and returns the exit code. */
+export async function main(args: string[]): Promise<number> {
+  const [name, ...rest] = args;
+  if (name === undefined || name === "--help" || name === "-h" || name === "help") {
+    console.log(HELP);
+    return name === undefined ? EXIT.usage : EXIT.ok;
+  }
+  const command = COMMANDS[name];
+  if (!command) {
+    log(`crystint: unknown command "${name}"\n\n${HELP}`);
+    return EXIT.usage;
+  }
+  try {
+    return await command(rest);
+  } catch (e) {
+    if (e instanceof UsageError) {
+      log(`crystint ${name}: ${e.message}\nRun "crystint ${name} --help" for usage.`);
+      return EXIT.usage;
+    }
+    log(`crystint ${name}: ${(e as Error).stack ?? e}`);
+    return EXIT.usage;
+  }
+}
+
+if (import.meta.main) Deno.exit(await main(Deno.args));

@@ -1,0 +1,15 @@
+/**
+ * CIE colorimetry: observers, illuminants, tristimulus integration, colour spaces, ΔE.
+ *
+ * @module
+ */
+export * from "./grid.ts";
+export * from "./observers.ts";
+export * from "./illuminants.ts";
+export * from "./daylight.ts";
+export * from "./illuminant_a.ts";
+export * from "./interpolate.ts";
+export * from "./tristimulus.ts";
+export * from "./spaces.ts";
+export * from "./delta_e.ts";
+export * from "./spectrum_colour.ts";

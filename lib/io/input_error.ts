@@ -1,0 +1,37 @@
+/**
+ * The one error type for bad user input: it names the file, the line and the problem.
+ *
+ * @module
+ */
+
+/** What was wrong with an input, for programs that react to it. */
+export type InputProblem =
+  | "empty"
+  | "binary"
+  | "encoding"
+  | "malformed"
+  | "non-numeric"
+  | "non-finite"
+  | "duplicate-x"
+  | "non-monotonic"
+  | "too-few-points"
+  | "out-of-range"
+  | "ambiguous-ordinate"
+  | "ambiguous-axis"
+  | "missing-thickness"
+  | "unreadable";
+
+/** A problem with one input file, located to a line where possible. */
+export class InputError extends Error {
+  readonly file: string;
+  readonly line: number | undefined;
+  readonly problem: InputProblem;
+
+  constructor(problem: InputProblem, file: string, line: number | undefined, detail: string) {
+    super(`${file}${line === undefined ? "" : `:${line}`}: ${detail}`);
+    this.name = "InputError";
+    this.problem = problem;
+    this.file = file;
+    this.line = line;
+  }
+}

@@ -1,0 +1,209 @@
+/**
+ * Finds the numeric table inside a text export: delimiter and decimal mark, the metadata
+ * preamble, the header row, the data rows (with their line numbers) and any footer.
+ * Field splitting is done by csv-parse; this module only decides how to call it.
+ *
+ * @module
+ */
+import { parse } from "csv-parse/sync";
+import { InputError } from "./input_error.ts";
+
+/** A located, numeric table read from a text export. */
+export interface TextTable {
+  delimiter: "," | ";" | "\t" | "whitespace";
+  decimalComma: boolean;
+  /** Header cells, when a header row was found. */
+  header?: string[];
+  /** 1-based line number of the header row. */
+  headerLine?: number;
+  /** Data rows as numbers, all of the same width. */
+  rows: number[][];
+  /** 1-based source line number of each data row. */
+  rowLines: number[];
+  /** Key/value lines before the header (and any footer), verbatim. */
+  fields: Record<string, string>;
+  /** `#` comment lines, verbatim. */
+  comments: string[];
+}
+
+const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const NON_FINITE = /^[+-]?(nan|inf|infinity|∞|1\.#inf|1\.#ind)$/i;
+
+interface Line {
+  text: string;
+  no: number;
+}
+
+function splitLines(text: string): Line[] {
+  return text.split(/\r\n|\n|\r/).map((t, i) => ({ text: t.replace(/^\uFEFF/, ""), no: i + 1 }));
+}
+
+function looksNumeric(line: string): boolean {
+  return /^\s*[+-]?(\d|\.\d)/.test(line);
+}
+
+function chooseDelimiter(sample: string[]): TextTable["delimiter"] {
+  if (sample.some((l) => l.includes("\t"))) return "\t";
+  if (sample.some((l) => l.includes(";"))) return ";";
+  if (sample.some((l) => l.includes(","))) {
+    const ws = sample.every((l) => {
+      const f = l.trim().split(/\s+/);
+      return f.length >= 2 && f.every((c) => /^[+-]?\d+(,\d+)?([eE][+-]?\d+)?$/.test(c));
+    });
+    return ws ? "whitespace" : ",";
+  }
+  return "whitespace";
+}
+
+function splitRecords(lines: Line[], delimiter: TextTable["delimiter"], file: string): Line[][] {
+  if (delimiter === "whitespace") {
+    return lines.map((l) => l.text.trim().split(/\s+/).map((t) => ({ text: t, no: l.no })));
+  }
+  return lines.map((l) => {
+    try {
+      const cells: string[][] = parse(l.text, {
+        delimiter,
+        relax_column_count: true,
+        relax_quotes: true,
+        trim: true,
+        skip_empty_lines: false,
+      });
+      return (cells[0] ?? []).map((t) => ({ text: t, no: l.no }));
+    } catch (e) {
+      throw new InputError("malformed", file, l.no, `Cannot split line: ${(e as Error).message}`);
+    }
+  });
+}
+
+/** Parses a cell as a number (decimal comma allowed when set); undefined when not numeric. */
+export function parseNumberCell(cell: string, decimalComma: boolean): number | undefined {
+  const t = (decimalComma ? cell.replace(",", ".") : cell).trim();
+  return NUMBER.test(t) ? Number(t) : undefined;
+}
+
+function keyValue(cells: string[], raw: string): [string, string] | undefined {
+  if (cells.length >= 2 && cells[0]) {
+    return [
+      cells[0].replace(/[:=]\s*$/, "").trim(),
+      cells.slice(1).filter(Boolean).join(" ").trim(),
+    ];
+  }
+  const m = /^\s*([^:=]+?)\s*[:=]\s*(.*)$/.exec(raw);
+  return m ? [m[1]!, m[2]!.trim()] : undefined;
+}
+
+/**
+ * Locates the numeric table in export text.
+ *
+ * @throws {InputError} `empty` when no data rows exist, `non-numeric` / `non-finite` /
+ *   `malformed` for a bad row inside the table (with its line number).
+ */
+export function readTextTable(text: string, file: string): TextTable {
+  const all = splitLines(text);
+  const comments = all.filter((l) => /^\s*#/.test(l.text)).map((l) =>
+    l.text.replace(/^\s*#\s?/, "")
+  );
+  const lines = all.filter((l) => l.text.trim() !== "" && !/^\s*#/.test(l.text));
+  const numericSample = lines.filter((l) => looksNumeric(l.text)).slice(0, 50).map((l) => l.text);
+  if (numericSample.length === 0) {
+    throw new InputError("empty", file, undefined, "No numeric data rows found");
+  }
+  const delimiter = chooseDelimiter(numericSample);
+  const records = splitRecords(lines, delimiter, file);
+  const decimalComma = delimiter !== "," &&
+    records.some((r) =>
+      looksNumeric(r[0]?.text ?? "") && r.some((c) => /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(c.text))
+    );
+  const numericRow = (r: Line[]) =>
+    r.length >= 2 && r.every((c) => parseNumberCell(c.text, decimalComma) !== undefined);
+  let start = -1;
+  for (let i = 0; i < records.length; i++) {
+    const r = records[i]!;
+    const next = records[i + 1];
+    if (numericRow(r) && (next === undefined || (numericRow(next) && next.length === r.length))) {
+      start = i;
+      break;
+    }
+  }
+  if (start < 0) {
+    const first = records.find((r) => looksNumeric(r[0]?.text ?? ""));
+    const bad = first?.find((c) => parseNumberCell(c.text, decimalComma) === undefined);
+    if (first && bad) throw cellError(file, bad, decimalComma);
+    throw new InputError(
+      "empty",
+      file,
+      undefined,
+      "No table of at least two numeric columns found",
+    );
+  }
+  const width = records[start]!.length;
+  const fields: Record<string, string> = {};
+  let header: string[] | undefined;
+  let headerLine: number | undefined;
+  const before = records.slice(0, start);
+  const last = before[before.length - 1];
+  if (last && !numericRow(last) && last.length >= Math.min(2, width)) {
+    header = last.map((c) => c.text);
+    if (delimiter === "whitespace" && header.length !== width) {
+      const raw = lines[before.length - 1]!.text.trim();
+      const wide = raw.split(/\t|\s{2,}/);
+      header = wide.length === width ? wide : header;
+    }
+    headerLine = last[0]?.no;
+    before.pop();
+  }
+  before.forEach((r, i) => {
+    const raw = lines[i]!.text;
+    const kv = keyValue(r.map((c) => c.text), raw);
+    if (kv) fields[kv[0]] = kv[1];
+    else fields[`line ${lines[i]!.no}`] = raw.trim();
+  });
+  const rows: number[][] = [];
+  const rowLines: number[] = [];
+  for (let i = start; i < records.length; i++) {
+    const r = records[i]!;
+    if (!looksNumeric(r[0]?.text ?? "")) {
+      const nonFinite = r.find((c) => NON_FINITE.test(c.text.trim()));
+      if (nonFinite) throw cellError(file, nonFinite, decimalComma);
+      records.slice(i).forEach((f) => {
+        const kv = keyValue(f.map((c) => c.text), f.map((c) => c.text).join(" "));
+        fields[kv ? kv[0] : `line ${f[0]?.no}`] = kv ? kv[1] : f.map((c) => c.text).join(" ");
+      });
+      break;
+    }
+    const values: number[] = [];
+    for (const c of r) {
+      const v = parseNumberCell(c.text, decimalComma);
+      if (v === undefined) throw cellError(file, c, decimalComma);
+      values.push(v);
+    }
+    if (values.length !== width) {
+      throw new InputError(
+        "malformed",
+        file,
+        r[0]?.no,
+        `Row has ${values.length} fields where the table has ${width}`,
+      );
+    }
+    rows.push(values);
+    rowLines.push(r[0]!.no);
+  }
+  const table: TextTable = { delimiter, decimalComma, rows, rowLines, fields, comments };
+  if (header) table.header = header;
+  if (headerLine !== undefined) table.headerLine = headerLine;
+  return table;
+}
+
+function cellError(file: string, cell: Line, decimalComma: boolean): InputError {
+  const text = cell.text.trim();
+  if (NON_FINITE.test(text)) {
+    return new InputError("non-finite", file, cell.no, `Value "${text}" is not a finite number`);
+  }
+  if (text === "") {
+    return new InputError("non-numeric", file, cell.no, "Empty cell in the data table");
+  }
+  const hint = !decimalComma && /^\d+,\d+$/.test(text)
+    ? " (decimal comma with a comma delimiter?)"
+    : "";
+  return new InputError("non-numeric", file, cell.no, `Cell "${text}" is not a number${hint}`);
+}

@@ -1,0 +1,8 @@
+/**
+ * The spectrum model and unit conversions.
+ *
+ * @module
+ */
+export * from "./spectrum.ts";
+export * from "./ordinate.ts";
+export * from "./axis.ts";
