@@ -3,7 +3,7 @@
  *
  * @module
  */
-import { parseArgs, type ParseArgsConfig } from "node:util";
+import { parseArgs, type ParseArgsOptionsConfig } from "node:util";
 import { stringify } from "csv-stringify/sync";
 import { InputError } from "../lib/io/input_error.ts";
 
@@ -19,9 +19,12 @@ export class UsageError extends Error {
 }
 
 /** Parses arguments, turning unknown options into a {@linkcode UsageError}. */
-export function parseCommandArgs<T extends ParseArgsConfig["options"]>(args: string[], options: T) {
+export function parseCommandArgs<const T extends ParseArgsOptionsConfig>(
+  args: string[],
+  options: T,
+) {
   try {
-    return parseArgs({ args, options: options!, allowPositionals: true, strict: true });
+    return parseArgs({ args, options, allowPositionals: true, strict: true });
   } catch (e) {
     throw new UsageError((e as Error).message);
   }

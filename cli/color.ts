@@ -95,7 +95,9 @@ export async function resolveIlluminants(names: string[]): Promise<Illuminant[]>
   const out: Illuminant[] = [];
   for (const name of names) {
     if (/[\\/]|\.(csv|txt|tsv|dat|spd|jdx)$/i.test(name)) {
-      const [spd] = await readSpectrumFile(name, { ordinate: "transmittance" }).catch((e) => {
+      // An SPD is relative power, not a transmittance: read the raw values without the 0..1
+      // checks (the absorbance reading applies none) and use them as they are.
+      const [spd] = await readSpectrumFile(name, { ordinate: "absorbance" }).catch((e) => {
         throw new UsageError(`Cannot read illuminant SPD: ${(e as Error).message}`);
       });
       out.push(customIlluminant(name, spd!.wavelengthNm, spd!.values));

@@ -1,8 +1,9 @@
 /**
  * Carries a uniformly tabulated illuminant onto the 1 nm grid, zero outside its table.
- * D-series: linear between tabulated values (CIE 15:2018 §3.1; the CIE's own 1 nm D65 file
- * is the linear interpolation of the 5 nm table). Other smooth or band-integrated tables
- * (C, F-series): Sprague (CIE 167), which reproduces the ASTM E308 white points within 0.005.
+ * D65: linear between tabulated values (the CIE's own 1 nm D65 file is the linear
+ * interpolation of its 5 nm table). Other smooth or band-integrated tables (C, F-series,
+ * D-series from the recipe): Sprague (CIE 167), which reproduces the ASTM E308-01 white
+ * points within 0.005.
  */
 import { GRID_LENGTH, GRID_START_NM } from "./grid.ts";
 import { resampleTo1nm } from "./interpolate.ts";

@@ -41,9 +41,13 @@ export function daylightSpd5nm(cctK: number): Float64Array<ArrayBuffer> {
   return s0!.map((v, i) => v + m1 * s1![i]! + m2 * s2![i]!);
 }
 
-/** Daylight SPD on the 360–830 nm 1 nm grid, linear between the 5 nm values. */
+/**
+ * Daylight SPD on the 360–830 nm 1 nm grid, Sprague-interpolated from the 5 nm recipe values
+ * (CIE 167); this reproduces the ASTM E308-01 white points of D50 to the third decimal.
+ * D65 itself uses the CIE's tabulated values (see illuminants.ts).
+ */
 export function daylightSpd(cctK: number): Float64Array<ArrayBuffer> {
-  return tabulatedTo1nm(components.startNm, components.stepNm, daylightSpd5nm(cctK), "linear");
+  return tabulatedTo1nm(components.startNm, components.stepNm, daylightSpd5nm(cctK), "sprague");
 }
 
 /** A nominal D-series temperature (e.g. 5000 for D50) on the current c2 scale. */

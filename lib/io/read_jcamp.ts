@@ -10,6 +10,8 @@ import { InputError } from "./input_error.ts";
 import type { ReadOptions } from "./read_spectra.ts";
 import { spectraFromTable } from "./read_spectra.ts";
 import type { TextTable } from "./read_table.ts";
+import type { OrdinateKind } from "./header_units.ts";
+import type { AxisUnit } from "../spectrum/axis.ts";
 
 const SQZ: Record<string, number> = { "@": 0 };
 const DIF: Record<string, number> = { "%": 0 };
@@ -96,21 +98,23 @@ export function decodeAsdfLine(
   return { values, endsInDif: lastWasDif };
 }
 
-function ordinateLabel(yUnits: string): string {
+function ordinateOf(yUnits: string): OrdinateKind | undefined {
   const u = yUnits.toUpperCase();
   if (u.includes("ABSORBANCE")) return "absorbance";
-  if (u.includes("%") || u.includes("PERCENT")) return "%T";
-  if (u.includes("TRANSMITTANCE")) return "T";
-  if (u.includes("REFLECTANCE")) return "R";
-  return yUnits;
+  if (u.includes("REFLECTANCE")) {
+    return u.includes("%") || u.includes("PERCENT") ? "percent-reflectance" : "reflectance";
+  }
+  if (u.includes("%") || u.includes("PERCENT")) return "percent";
+  if (u.includes("TRANSMITTANCE")) return "transmittance";
+  return undefined;
 }
 
-function axisLabel(xUnits: string): string {
+function axisOf(xUnits: string): AxisUnit | undefined {
   const u = xUnits.toUpperCase();
   if (u.includes("1/CM")) return "cm-1";
   if (u.includes("MICROMETERS")) return "um";
   if (u.includes("NANOMETERS")) return "nm";
-  return xUnits;
+  return undefined;
 }
 
 /**
@@ -208,17 +212,18 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
   const table: TextTable = {
     delimiter: "whitespace",
     decimalComma: false,
-    header: [
-      axisLabel(fields["XUNITS"] ?? ""),
-      `${fields["TITLE"] ?? ""} ${ordinateLabel(fields["YUNITS"] ?? "")}`,
-    ],
+    header: [fields["XUNITS"] ?? "", fields["YUNITS"] ?? ""],
     rows,
     rowLines,
     fields,
     comments: [],
   };
   if (dataLine) table.headerLine = dataLine;
-  const spectra = spectraFromTable(table, file, options);
+  const fromFile: ReadOptions = {};
+  const ordinate = ordinateOf(fields["YUNITS"] ?? ""), axis = axisOf(fields["XUNITS"] ?? "");
+  if (ordinate) fromFile.ordinate = ordinate;
+  if (axis) fromFile.axis = axis;
+  const spectra = spectraFromTable(table, file, { ...fromFile, ...options });
   for (const s of spectra) if (fields["TITLE"]) s.meta.sample = fields["TITLE"];
   return spectra;
 }
