@@ -4,6 +4,7 @@
  * @module
  */
 import { colorCommand } from "./color.ts";
+import { changeCommand } from "./change.ts";
 import { EXIT, log, UsageError } from "./_shared.ts";
 
 const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
@@ -12,7 +13,8 @@ Usage:
   crystint <command> [options]
 
 Commands:
-  color     CIE colour (XYZ, xy, L*a*b*, LCh) of spectra under chosen illuminants
+  color     CIE colour (XYZ, xy, L*a*b*, LCh, swatches) of spectra under chosen illuminants
+  change    colour change between two illuminants (ΔE00, ΔL*, ΔC*, Δh)
 
 Run "crystint <command> --help" for the options of a command.
 Colour numbers are measurement aids, not a grading or appraisal.
@@ -20,6 +22,7 @@ Colour numbers are measurement aids, not a grading or appraisal.
 
 const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   color: colorCommand,
+  change: changeCommand,
 };
 
 /** Runs crystint with the given arguments and returns the exit code. */

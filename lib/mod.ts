@@ -16,3 +16,4 @@
 export * from "./spectrum/mod.ts";
 export * from "./io/mod.ts";
 export * from "./cie/mod.ts";
+export * from "./optics/mod.ts";

@@ -121,10 +121,15 @@ for name, xs, f in FIXTURES:
     }
     reference[name]["argyllInput"] = f"analytic curve at 1 nm, {ax[0]}-{ax[-1]} nm"
 
+whites = {
+    f"{il}/{ob}": argyll_xyz(grid(360, 830, 1), [1.0] * 471, il, o)
+    for il in ("D65", "A") for ob, o in (("2", "1931_2"), ("10", "1964_10"))
+}
 version = subprocess.run(["dpkg-query", "-W", "-f=${Version}", "argyll"], capture_output=True, text=True).stdout
 (out / "argyll_reference.json").write_text(json.dumps({
     "tool": f"Argyll CMS spec2cie (Debian argyll {version})",
     "options": "spec2cie -n -i <D65|A> -o <1931_2|1964_10>; XYZ scaled x100 (Y = 100 for T = 1)",
+    "whites": whites,
     "fixtures": reference,
 }, indent=1) + "\n")
 print(len(reference), "fixtures")

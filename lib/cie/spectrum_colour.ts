@@ -6,11 +6,13 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import { transmittanceAtPath } from "../spectrum/ordinate.ts";
 import { getIlluminant, type Illuminant } from "./illuminants.ts";
 import { tristimulusWeights, weightedXyz, type Xyz } from "./tristimulus.ts";
 import { labToLch, xyzToLab, xyzToUvPrime, xyzToXy } from "./spaces.ts";
 import type { InterpolationMethod } from "./interpolate.ts";
+import { type ReflectionSettings, transmittanceForPath } from "../optics/path_transmittance.ts";
+import { dominantWavelength } from "./dominant_wavelength.ts";
+import { swatchFromXyz } from "./swatch.ts";
 
 /** One colour result: a sample under one illuminant and one observer. */
 export interface ColourRow {
@@ -39,6 +41,16 @@ export interface ColourRow {
   method: InterpolationMethod;
   /** True when the data did not span 360–830 nm and end values were extended. */
   extrapolated: boolean;
+  /** Dominant (or, when `complementary`, complementary) wavelength in nm; null at the white. */
+  dominantNm: number | null;
+  complementary: boolean;
+  /** Excitation purity 0..1. */
+  purity: number | null;
+  /** Display swatch (sRGB hex after Bradford adaptation to D65, gamut-mapped when flagged). */
+  srgb: string;
+  srgbOutOfGamut: boolean;
+  p3: string;
+  p3OutOfGamut: boolean;
 }
 
 /** Choices for {@linkcode spectrumColour}. */
@@ -51,6 +63,8 @@ export interface ColourOptions {
   pathMm?: number;
   /** Transmittance already computed for the path (skips rescaling); same grid as the spectrum. */
   transmittance?: Float64Array;
+  /** Surface-reflection treatment for the path rescaling; default none (Beer–Lambert). */
+  reflection?: ReflectionSettings;
 }
 
 /** The colour coordinates of one stimulus. */
@@ -77,14 +91,19 @@ export function colourFromXyz(xyz: Xyz, white: Xyz): ColourCoordinates {
 export function spectrumColour(spectrum: Spectrum, options: ColourOptions = {}): ColourRow[] {
   const illuminants = options.illuminants ?? ["D65", "A"];
   const observers = options.observers ?? ["2"];
-  const t = options.transmittance ?? transmittanceAtPath(spectrum, options.pathMm);
+  const t = options.transmittance ??
+    transmittanceForPath(spectrum, options.pathMm, options.reflection).values;
   const pathMm = options.pathMm ?? spectrum.thicknessMm ?? null;
   const rows: ColourRow[] = [];
   for (const ill of illuminants) {
     const illuminant = typeof ill === "string" ? getIlluminant(ill) : ill;
     for (const observer of observers) {
       const w = tristimulusWeights(spectrum.wavelengthNm, illuminant, observer);
-      const colour = colourFromXyz(weightedXyz(t, w), w.white);
+      const xyz = weightedXyz(t, w);
+      const colour = colourFromXyz(xyz, w.white);
+      const white = xyzToXy(w.white);
+      const dominant = dominantWavelength(colour.x, colour.y, white.x, white.y, w.observer);
+      const swatch = swatchFromXyz(xyz, w.white);
       rows.push({
         sample: spectrum.meta.sample,
         file: spectrum.meta.sourceFile ?? "",
@@ -97,6 +116,13 @@ export function spectrumColour(spectrum: Spectrum, options: ColourOptions = {}):
         whiteZ: w.white.Z,
         method: w.method,
         extrapolated: w.extrapolated,
+        dominantNm: dominant?.wavelengthNm ?? null,
+        complementary: dominant?.complementary ?? false,
+        purity: dominant?.purity ?? null,
+        srgb: swatch.srgb.css,
+        srgbOutOfGamut: swatch.srgb.outOfGamut,
+        p3: swatch.p3.css,
+        p3OutOfGamut: swatch.p3.outOfGamut,
       });
     }
   }

@@ -1,0 +1,70 @@
+/**
+ * Chromatic adaptation transforms (von Kries-type): Bradford (Lam 1985, as used in ICC
+ * profiles) and CAT16 (Li, Li, Wang, Zu, Luo, Cui, Melgosa, Brill & Pointer, Color Res. Appl.
+ * 42, 703 (2017)) with complete adaptation (D = 1).
+ *
+ * @module
+ */
+import type { Xyz } from "./tristimulus.ts";
+
+type Matrix = readonly [readonly number[], readonly number[], readonly number[]];
+
+/** Bradford cone-response matrix (Lam 1985). */
+export const BRADFORD: Matrix = [
+  [0.8951, 0.2664, -0.1614],
+  [-0.7502, 1.7135, 0.0367],
+  [0.0389, -0.0685, 1.0296],
+];
+
+/** CAT16 matrix M16 (Li et al. 2017, eq. 2). */
+export const CAT16: Matrix = [
+  [0.401288, 0.650173, -0.051461],
+  [-0.250268, 1.204414, 0.045854],
+  [-0.002079, 0.048952, 0.953127],
+];
+
+/** Multiplies a 3×3 matrix by a vector. */
+export function multiply(m: Matrix, v: readonly number[]): [number, number, number] {
+  return [0, 1, 2].map((i) => m[i]![0]! * v[0]! + m[i]![1]! * v[1]! + m[i]![2]! * v[2]!) as [
+    number,
+    number,
+    number,
+  ];
+}
+
+/** Inverse of a 3×3 matrix. */
+export function invert(m: Matrix): Matrix {
+  const [a, b, c] = m[0]!, [d, e, f] = m[1]!, [g, h, i] = m[2]!;
+  const A = e! * i! - f! * h!, B = -(d! * i! - f! * g!), C = d! * h! - e! * g!;
+  const det = a! * A + b! * B + c! * C;
+  return [
+    [A / det, -(b! * i! - c! * h!) / det, (b! * f! - c! * e!) / det],
+    [B / det, (a! * i! - c! * g!) / det, -(a! * f! - c! * d!) / det],
+    [C / det, -(a! * h! - b! * g!) / det, (a! * e! - b! * d!) / det],
+  ];
+}
+
+/** Name of an adaptation transform. */
+export type AdaptationMethod = "bradford" | "cat16";
+
+/**
+ * XYZ seen under a source white, adapted to a destination white (corresponding colour).
+ *
+ * @example A white stays white
+ * ```ts
+ * import { adaptXyz } from "./adaptation.ts";
+ * const a = { X: 109.85, Y: 100, Z: 35.585 }, d65 = { X: 95.047, Y: 100, Z: 108.883 };
+ * const w = adaptXyz(a, a, d65, "cat16");
+ * if (Math.abs(w.Z - 108.883) > 1e-9) throw new Error("white must map to white");
+ * ```
+ */
+export function adaptXyz(xyz: Xyz, fromWhite: Xyz, toWhite: Xyz, method: AdaptationMethod): Xyz {
+  const m = method === "bradford" ? BRADFORD : CAT16;
+  const inv = invert(m);
+  const src = multiply(m, [fromWhite.X, fromWhite.Y, fromWhite.Z]);
+  const dst = multiply(m, [toWhite.X, toWhite.Y, toWhite.Z]);
+  const c = multiply(m, [xyz.X, xyz.Y, xyz.Z]);
+  const scaled = c.map((v, i) => (v * dst[i]!) / src[i]!);
+  const [X, Y, Z] = multiply(inv, scaled);
+  return { X, Y, Z };
+}

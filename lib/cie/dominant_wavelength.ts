@@ -1,0 +1,95 @@
+/**
+ * Dominant (or complementary) wavelength and excitation purity (CIE 15:2018 §9.1): the
+ * straight line from the white point through the sample's chromaticity meets the spectral
+ * locus of the observer at λd; when it meets the purple line instead, the line through the
+ * white the other way gives the complementary wavelength λc. pe = distance(white, sample) /
+ * distance(white, boundary point).
+ *
+ * @module
+ */
+import { getObserver } from "./observers.ts";
+import { GRID_LENGTH, GRID_START_NM } from "./grid.ts";
+
+/** Result of the dominant-wavelength construction. */
+export interface DominantWavelength {
+  /** λd in nm, or λc (complementary) when `complementary` is true. */
+  wavelengthNm: number;
+  complementary: boolean;
+  /** Excitation purity 0 (white) … 1 (on the boundary). */
+  purity: number;
+}
+
+/** The spectral locus (x, y) of an observer at 1 nm, 360–830 nm. */
+export function spectralLocus(observer: string): { nm: number[]; x: number[]; y: number[] } {
+  const o = getObserver(observer);
+  const nm: number[] = [], x: number[] = [], y: number[] = [];
+  for (let i = 0; i < GRID_LENGTH; i++) {
+    const s = o.x[i]! + o.y[i]! + o.z[i]!;
+    if (!(s > 0)) continue;
+    nm.push(GRID_START_NM + i);
+    x.push(o.x[i]! / s);
+    y.push(o.y[i]! / s);
+  }
+  return { nm, x, y };
+}
+
+/** Intersection parameter t ≥ 0 of ray p + t·d with segment a–b (u in 0..1), or undefined. */
+function rayHit(
+  px: number,
+  py: number,
+  dx: number,
+  dy: number,
+  ax: number,
+  ay: number,
+  bx: number,
+  by: number,
+) {
+  const ex = bx - ax, ey = by - ay;
+  const den = dx * ey - dy * ex;
+  if (Math.abs(den) < 1e-15) return undefined;
+  const t = ((ax - px) * ey - (ay - py) * ex) / den;
+  const u = ((ax - px) * dy - (ay - py) * dx) / den;
+  return t >= 0 && u >= -1e-12 && u <= 1 + 1e-12 ? { t, u } : undefined;
+}
+
+/**
+ * Dominant or complementary wavelength of chromaticity (x, y) seen against a white (xw, yw).
+ *
+ * @returns undefined for a stimulus at the white point (no hue direction).
+ */
+export function dominantWavelength(
+  x: number,
+  y: number,
+  xw: number,
+  yw: number,
+  observer = "2",
+): DominantWavelength | undefined {
+  const dx = x - xw, dy = y - yw;
+  const dist = Math.hypot(dx, dy);
+  if (dist < 1e-9) return undefined;
+  // Use the locus from 380 to 700 nm: beyond it the chromaticities fold back on themselves.
+  const locus = spectralLocus(observer);
+  const keep = locus.nm.map((nm, i) => (nm >= 380 && nm <= 700 ? i : -1)).filter((i) => i >= 0);
+  const lx = keep.map((i) => locus.x[i]!),
+    ly = keep.map((i) => locus.y[i]!),
+    ln = keep.map((i) => locus.nm[i]!);
+  const find = (sx: number, sy: number) => {
+    let best: { t: number; nm: number } | undefined;
+    for (let k = 0; k + 1 < lx.length; k++) {
+      const hit = rayHit(xw, yw, sx, sy, lx[k]!, ly[k]!, lx[k + 1]!, ly[k + 1]!);
+      if (hit && (!best || hit.t < best.t)) {
+        best = { t: hit.t, nm: ln[k]! + hit.u * (ln[k + 1]! - ln[k]!) };
+      }
+    }
+    return best;
+  };
+  const forward = find(dx, dy);
+  const n = lx.length - 1;
+  const purple = rayHit(xw, yw, dx, dy, lx[0]!, ly[0]!, lx[n]!, ly[n]!);
+  if (forward && (!purple || forward.t <= purple.t)) {
+    return { wavelengthNm: forward.nm, complementary: false, purity: 1 / forward.t };
+  }
+  const back = find(-dx, -dy);
+  if (!back || !purple) return undefined;
+  return { wavelengthNm: back.nm, complementary: true, purity: 1 / purple.t };
+}

@@ -1,0 +1,121 @@
+/**
+ * Transmittance of the crystal at another path length, with or without the two polished
+ * surfaces: the measured slab is reduced to its internal transmittance (closed-form inversion
+ * of the incoherent slab formula, or plain Beer–Lambert when reflections are ignored), scaled
+ * to the new path, and the surfaces put back if wanted.
+ *
+ * @module
+ */
+import type { Spectrum } from "../spectrum/spectrum.ts";
+import { spectrumAbsorbance, transmittanceAtPath } from "../spectrum/ordinate.ts";
+import { getHost, type HostEntry, hostIndex } from "./refractive_index.ts";
+import { fresnelReflectance, internalFromSlab, slabTransmittance } from "./slab.ts";
+
+/** How surface reflections are treated. */
+export interface ReflectionSettings {
+  /** `none`: Beer–Lambert on the measured absorbance; `host`: Fresnel surfaces from n(λ). */
+  reflection: "none" | "host";
+  /** Host by name (catalogue) or entry; needed for `host` unless `n` is given. */
+  host?: string | HostEntry;
+  /** Principal axis for n(λ); default from the spectrum's polarisation (o/e) or the first axis. */
+  axis?: string;
+  /** A constant refractive index overriding the host's dispersion. */
+  n?: number;
+  /** Keep the two surfaces in the output (a slab as measured); default true. */
+  surfaces?: boolean;
+}
+
+/** Surface reflectance R(λ) on a spectrum's grid, with any range warnings. */
+export function surfaceReflectance(
+  wavelengthNm: Float64Array,
+  settings: ReflectionSettings,
+  polarisation?: string,
+): { r: Float64Array<ArrayBuffer>; warnings: string[] } {
+  const warnings: string[] = [];
+  if (settings.n !== undefined) {
+    return {
+      r: new Float64Array(wavelengthNm.length).fill(fresnelReflectance(settings.n)),
+      warnings,
+    };
+  }
+  if (settings.host === undefined) {
+    throw new RangeError("Cannot compute surface reflections: give --host NAME or --n VALUE");
+  }
+  const host = typeof settings.host === "string" ? getHost(settings.host) : settings.host;
+  const axes = Object.keys(host.axes);
+  const axis = settings.axis ??
+    (polarisation === "e" && axes.includes("e") ? "e" : axes.includes("o") ? "o" : axes[0]!);
+  const r = new Float64Array(wavelengthNm.length);
+  let warned = false;
+  wavelengthNm.forEach((nm, i) => {
+    const { n, warning } = hostIndex(host, nm, axis);
+    if (warning && !warned && nm >= 380 && nm <= 780) {
+      warnings.push(warning);
+      warned = true;
+    }
+    r[i] = fresnelReflectance(n);
+  });
+  return { r, warnings };
+}
+
+/**
+ * Transmittance of a spectrum's crystal at `pathMm` under the given reflection settings.
+ *
+ * @param pathMm Target path in mm; when omitted, the measured path is kept.
+ * @throws {RangeError} When a needed thickness, host or index is missing.
+ */
+export function transmittanceForPath(
+  spectrum: Spectrum,
+  pathMm: number | undefined,
+  settings: ReflectionSettings = { reflection: "none" },
+): { values: Float64Array<ArrayBuffer>; warnings: string[] } {
+  if (settings.reflection === "none") {
+    return { values: transmittanceAtPath(spectrum, pathMm), warnings: [] };
+  }
+  const { r, warnings } = surfaceReflectance(
+    spectrum.wavelengthNm,
+    settings,
+    spectrum.polarisation,
+  );
+  const surfaces = settings.surfaces ?? true;
+  const d = spectrum.thicknessMm;
+  const path = pathMm ?? d;
+  let internalPerMm: Float64Array;
+  if (spectrum.quantity === "alpha") {
+    internalPerMm = spectrum.values.map((alpha) => -alpha / 10);
+  } else {
+    if (d === undefined || !(d > 0)) {
+      throw new RangeError(
+        `Cannot separate surfaces from "${spectrum.meta.sample}": the measured thickness is not known (give --thickness)`,
+      );
+    }
+    const measured = spectrumAbsorbance(spectrum).map((a) => 10 ** -a);
+    internalPerMm = measured.map((t, i) =>
+      Math.log(Math.max(internalFromSlab(t, r[i]!), 1e-300)) / d
+    );
+  }
+  if (path === undefined) {
+    throw new RangeError(
+      `Cannot compute transmittance of "${spectrum.meta.sample}": no path length given`,
+    );
+  }
+  const values = internalPerMm.map((k, i) => {
+    const x = Math.exp(k * path);
+    return surfaces ? slabTransmittance(x, r[i]!) : x;
+  });
+  return { values, warnings };
+}
+
+/**
+ * Unpolarised transmittance of a uniaxial crystal from its o and e spectra on one grid: the
+ * mean of the two transmittances. Unpolarised light is two incoherent halves, one along each
+ * axis, each attenuated by its own absorption; averaging the absorbances instead would give
+ * the geometric mean of T and underestimate the light that gets through.
+ */
+export function unpolarisedTransmittance(
+  tO: ArrayLike<number>,
+  tE: ArrayLike<number>,
+): Float64Array<ArrayBuffer> {
+  if (tO.length !== tE.length) throw new RangeError("Cannot average o and e: different grids");
+  return Float64Array.from({ length: tO.length }, (_, i) => (tO[i]! + tE[i]!) / 2);
+}

@@ -1,0 +1,69 @@
+import { describe, it } from "node:test";
+import { expect } from "expect";
+
+const root = decodeURIComponent(new URL("../../", import.meta.url).pathname);
+const fixture = (p: string) => `${root}test/fixtures/${p}`;
+
+async function run(...args: string[]) {
+  const out = await new Deno.Command(Deno.execPath(), {
+    args: ["run", "--allow-read", "--allow-env", `${root}cli/main.ts`, ...args],
+    stdout: "piped",
+    stderr: "piped",
+  }).output();
+  return {
+    code: out.code,
+    stdout: new TextDecoder().decode(out.stdout),
+    stderr: new TextDecoder().decode(out.stderr),
+  };
+}
+
+describe("crystint change (machine contract)", () => {
+  it("--json rows carry sample, file, from, to, observer, dE00, dEab, dL, dC, dh", async () => {
+    const r = await run(
+      "change",
+      fixture("colour/colour_change_5nm.csv"),
+      "--from",
+      "D65",
+      "--to",
+      "A",
+      "--observer",
+      "10",
+      "--json",
+    );
+    expect(r.code).toBe(0);
+    const [row] = JSON.parse(r.stdout);
+    for (
+      const k of ["sample", "file", "from", "to", "observer", "dE00", "dEab", "dL", "dC", "dh"]
+    ) expect(row).toHaveProperty(k);
+    expect(row.from).toBe("D65");
+    expect(row.to).toBe("A");
+    expect(row.observer).toBe("10");
+    expect(row.dh).toBeGreaterThan(-180);
+    expect(row.dh).toBeLessThanOrEqual(180);
+  });
+  it("--adapt takes cat16 or bradford; anything else is a usage error", async () => {
+    expect((await run("change", fixture("colour/ramp_2nm.csv"), "--adapt", "cat16", "--json")).code)
+      .toBe(0);
+    expect((await run("change", fixture("colour/ramp_2nm.csv"), "--adapt", "vonkries")).code).toBe(
+      1,
+    );
+  });
+  it("color --reflection host needs a host or n; with one it runs", async () => {
+    expect((await run("color", fixture("colour/ramp_2nm.csv"), "--reflection", "host")).code).toBe(
+      1,
+    );
+    const r = await run(
+      "color",
+      fixture("colour/ramp_2nm.csv"),
+      "--thickness",
+      "2",
+      "--path",
+      "5",
+      "--host",
+      "spinel",
+      "--json",
+    );
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.stdout)[0].pathMm).toBe(5);
+  });
+});
