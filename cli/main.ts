@@ -5,6 +5,8 @@
  */
 import { colorCommand } from "./color.ts";
 import { changeCommand } from "./change.ts";
+import { batchCommand } from "./batch.ts";
+import { reportCommand } from "./report.ts";
 import { EXIT, log, UsageError } from "./_shared.ts";
 
 const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
@@ -15,6 +17,8 @@ Usage:
 Commands:
   color     CIE colour (XYZ, xy, L*a*b*, LCh, swatches) of spectra under chosen illuminants
   change    colour change between two illuminants (ΔE00, ΔL*, ΔC*, Δh)
+  batch     process folders of exports into results.csv, results.json and an HTML report
+  report    re-render the HTML report from a saved results.json
 
 Run "crystint <command> --help" for the options of a command.
 Colour numbers are measurement aids, not a grading or appraisal.
@@ -23,6 +27,8 @@ Colour numbers are measurement aids, not a grading or appraisal.
 const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   color: colorCommand,
   change: changeCommand,
+  batch: batchCommand,
+  report: reportCommand,
 };
 
 /** Runs crystint with the given arguments and returns the exit code. */

@@ -17,3 +17,7 @@ export * from "./spectrum/mod.ts";
 export * from "./io/mod.ts";
 export * from "./cie/mod.ts";
 export * from "./optics/mod.ts";
+export * from "./dopant/mod.ts";
+export * from "./report/mod.ts";
+export * from "./batch/mod.ts";
+export { VERSION } from "./version.ts";

@@ -1,19 +1,22 @@
 /**
- * `deno task demo`: the colour table of the invented demo lot in spectra/demo/ (see
- * spectra/generate_demo.ts for the scenario).
+ * `deno task demo`: runs the batch over the invented demo lot in spectra/demo/ (see
+ * spectra/generate_demo.ts for the scenario) into reports/demo/ and prints the report's path.
  *
  * @module
  */
 import { main } from "../cli/main.ts";
 
-const dir = new URL("./demo/", import.meta.url);
-const files: string[] = [];
-for await (const entry of Deno.readDir(dir)) {
-  if (entry.isFile && entry.name !== "manifest.csv") {
-    files.push(decodeURIComponent(new URL(entry.name, dir).pathname));
-  }
-}
-files.sort();
-const code = await main(["color", ...files, "--illuminant", "D65,A", "--observer", "2"]);
-// The lot includes two deliberately damaged files, so exit code 2 is the expected outcome.
+const here = (p: string) => decodeURIComponent(new URL(p, import.meta.url).pathname);
+const code = await main([
+  "batch",
+  here("./demo/"),
+  "--manifest",
+  here("./demo/manifest.csv"),
+  "--settings",
+  here("./demo/settings.yaml"),
+  "--out",
+  here("../reports/demo"),
+]);
+// The lot includes two deliberately damaged files and a sheet line without its export, so
+// exit code 2 ("some inputs failed") is the expected outcome of the demo.
 Deno.exit(code === 2 ? 0 : code);

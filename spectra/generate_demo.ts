@@ -32,7 +32,7 @@ type Band = [centreCm1: number, fwhmCm1: number, alphaPerUnit: number];
 
 /** α in cm⁻¹ per wt% Cr2O3 (corundum, E⊥c) and per wt% Cr (chrysoberyl-type, two axes). */
 const HOSTS: Record<string, { bands: Band[]; scatter: number }> = {
-  "corundum-cr": { bands: [[18000, 2800, 14], [24600, 3200, 19], [14405, 25, 6]], scatter: 0.04 },
+  "corundum-cr": { bands: [[18000, 3000, 14], [24400, 4200, 24], [14405, 25, 6]], scatter: 0.04 },
   "chrysoberyl-cr-a": {
     bands: [[17300, 2600, 16], [23900, 3100, 15], [14690, 30, 4]],
     scatter: 0.05,
@@ -115,7 +115,16 @@ stones[3]!.layout = "jcamp";
 const outDir = new URL("./demo/", import.meta.url);
 await Deno.mkdir(outDir, { recursive: true });
 const fmt = (v: number, d: number) => v.toFixed(d);
-const manifest = ["sample,file,host,thickness_mm,path_mm,polarisation,notes"];
+const manifest = ["sample,file,host,thickness_mm,path_mm,polarisation,target,notes,lot"];
+
+/** One sample-sheet line; the thickness is left out where the export's preamble carries it. */
+function row(s: Stone, file: string, thickness: string): string {
+  const target = s.host === "corundum-cr" ? "pink-sapphire" : "";
+  const lot = s.host === "corundum-cr" ? "boule B-26-04" : "flux run F-26-11";
+  return `${s.id},${file},${
+    s.host.split("-")[0]
+  },${thickness},${s.pathMm},${s.polarisation},${target},${s.notes},${lot}`;
+}
 
 for (const s of stones) {
   const noise = 0.0015;
@@ -128,11 +137,7 @@ for (const s of stones) {
       new URL(file, outDir),
       `Wavelength (nm),${s.id} %T\n${rows.join("\n")}\n`,
     );
-    manifest.push(
-      `${s.id},${file},${
-        s.host.split("-")[0]
-      },${s.thicknessMm},${s.pathMm},${s.polarisation},${s.notes}`,
-    );
+    manifest.push(row(s, file, String(s.thicknessMm)));
   } else if (s.layout === "semicolon-preamble") {
     const rows = grid(350, 850, 2).map((nm) =>
       `${fmt(nm, 1)};${fmt(measuredT(nm, s.host, s.level, s.thicknessMm, noise), 5)}`.replace(
@@ -154,9 +159,7 @@ for (const s of stones) {
       new URL(file, outDir),
       `${preamble.join("\r\n")}\r\n${rows.join("\r\n")}\r\n`,
     );
-    manifest.push(
-      `${s.id},${file},${s.host.split("-")[0]},,${s.pathMm},${s.polarisation},${s.notes}`,
-    );
+    manifest.push(row(s, file, ""));
   } else if (s.layout === "tab-absorbance") {
     const rows = grid(320, 880, 0.5).reverse().map((nm) =>
       `${fmt(nm, 1)}\t${
@@ -168,11 +171,7 @@ for (const s of stones) {
       new URL(file, outDir),
       `# descending scan\nnm\tAbsorbance\n${rows.join("\n")}\n`,
     );
-    manifest.push(
-      `${s.id},${file},${
-        s.host.split("-")[0]
-      },${s.thicknessMm},${s.pathMm},${s.polarisation},${s.notes}`,
-    );
+    manifest.push(row(s, file, String(s.thicknessMm)));
   } else {
     const xs = grid(350, 850, 5);
     const ys = xs.map((nm) =>
@@ -201,11 +200,7 @@ for (const s of stones) {
         "##END=",
       ].join("\n") + "\n",
     );
-    manifest.push(
-      `${s.id},${file},${
-        s.host.split("-")[0]
-      },${s.thicknessMm},${s.pathMm},${s.polarisation},${s.notes}`,
-    );
+    manifest.push(row(s, file, String(s.thicknessMm)));
   }
 }
 
@@ -237,7 +232,25 @@ await Deno.writeFile(
     ...Array.from({ length: 200 }, (_, i) => (i * 37) % 256),
   ]),
 );
-manifest.push("TCW-R99,TCW-R99_damaged.csv,corundum,2,6,o,upload was interrupted");
-manifest.push("TCW-R98,TCW-R98_photo.csv,corundum,2,6,o,wrong file attached");
+manifest.push(
+  "TCW-R99,TCW-R99_damaged.csv,corundum,2,6,o,pink-sapphire,upload was interrupted,boule B-26-04",
+);
+manifest.push(
+  "TCW-R98,TCW-R98_photo.csv,corundum,2,6,o,pink-sapphire,wrong file attached,boule B-26-04",
+);
+manifest.push(
+  "TCW-R50,TCW-R50.csv,corundum,2.0,6,o,pink-sapphire,stone listed but its export is missing,boule B-26-04",
+);
 await Deno.writeTextFile(new URL("manifest.csv", outDir), manifest.join("\n") + "\n");
+await Deno.writeTextFile(
+  new URL("settings.yaml", outDir),
+  `# Demo batch settings (invented scenario). Targets are the workshop's own colour goals.
+illuminants: [D65, A]
+observers: ["2", "10"]
+change: { from: D65, to: A, observer: "10" }
+reflection: host
+targets:
+  pink-sapphire: { L: 50, a: 38, b: -8, illuminant: D65, observer: "10", toleranceDE00: 4 }
+`,
+);
 console.log(`wrote ${stones.length + 2} exports and manifest.csv to spectra/demo/`);

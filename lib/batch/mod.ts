@@ -1,0 +1,13 @@
+/**
+ * Batch runs over folders of exports, with a worker pool, a result cache and atomic outputs.
+ *
+ * @module
+ */
+export * from "./atomic_write.ts";
+export * from "./hash.ts";
+export * from "./manifest.ts";
+export * from "./plan_inputs.ts";
+export * from "./sample_result.ts";
+export * from "./settings.ts";
+export * from "./run_batch.ts";
+export * from "./report_from_results.ts";

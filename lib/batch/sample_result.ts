@@ -1,0 +1,219 @@
+/**
+ * Everything the batch computes for one input file: read → optics → colour → change →
+ * thickness series → target. Pure apart from its input bytes, so it runs in a worker.
+ *
+ * @module
+ */
+import { readSpectraFromBytes } from "../io/read_spectra.ts";
+import type { ReadOptions } from "../io/read_spectra.ts";
+import { axisFromText, ordinateFromText } from "../io/header_units.ts";
+import type { Spectrum } from "../spectrum/spectrum.ts";
+import { type ReflectionSettings, transmittanceForPath } from "../optics/path_transmittance.ts";
+import { type ColourRow, spectrumColour } from "../cie/spectrum_colour.ts";
+import { type ColourChange, colourChange } from "../cie/colour_change.ts";
+import { type ThicknessSeries, thicknessSeries } from "../cie/thickness_series.ts";
+import { swatchFromXyz } from "../cie/swatch.ts";
+import { checkTarget, type TargetCheck } from "../dopant/target.ts";
+import type { BatchSettings, TargetSetting } from "./settings.ts";
+import type { ManifestRow } from "./manifest.ts";
+
+/** Settings for one file after the manifest row is applied. */
+export interface SampleSettings {
+  read: ReadOptions;
+  /** Thickness used when neither the file nor the manifest gives one. */
+  fallbackThicknessMm?: number;
+  pathMm?: number;
+  reflection: ReflectionSettings;
+  illuminants: string[];
+  observers: string[];
+  change: BatchSettings["change"];
+  series: BatchSettings["series"];
+  target?: TargetSetting & { name: string };
+  changeHueThresholdDeg: number;
+  notes?: string;
+  extra: Record<string, string>;
+  sampleName?: string;
+  /** Polarisation as written in the sample sheet (used when the file does not say). */
+  polarisation?: string;
+}
+
+/** The result for one spectrum. */
+export interface SampleResult {
+  sample: string;
+  file: string;
+  quantity: string;
+  thicknessMm: number | null;
+  pathMm: number | null;
+  polarisation: string | null;
+  host: string | null;
+  notes: string;
+  extra: Record<string, string>;
+  warnings: string[];
+  colour: ColourRow[];
+  change: ColourChange & { swatchFrom: string; swatchTo: string; marked: boolean };
+  series: ThicknessSeries | null;
+  target:
+    | (TargetCheck & {
+      name: string;
+      illuminant: string;
+      observer: string;
+      L: number;
+      a: number;
+      b: number;
+    })
+    | null;
+  /** Transmittance at the reporting path, thinned to at most 300 points, for the charts. */
+  plot: { nm: number[]; t: number[] };
+}
+
+/** Applies a manifest row on top of the batch settings. */
+export function sampleSettings(
+  settings: BatchSettings,
+  row: ManifestRow | undefined,
+): SampleSettings {
+  const read: ReadOptions = {};
+  const ordinate = settings.ordinate ? ordinateFromText(settings.ordinate) : undefined;
+  const axis = settings.axis ? axisFromText(settings.axis) : undefined;
+  if (ordinate) read.ordinate = ordinate;
+  if (axis) read.axis = axis;
+  if (row?.thicknessMm !== undefined) read.thicknessMm = row.thicknessMm;
+  const host = row?.host ?? settings.host;
+  const reflection: ReflectionSettings = { reflection: settings.reflection };
+  if (host !== undefined) reflection.host = host;
+  if (settings.n !== undefined) reflection.n = settings.n;
+  const out: SampleSettings = {
+    read,
+    reflection,
+    illuminants: settings.illuminants,
+    observers: settings.observers,
+    change: settings.change,
+    series: settings.series,
+    changeHueThresholdDeg: settings.changeHueThresholdDeg,
+    extra: row?.extra ?? {},
+  };
+  const pathMm = row?.pathMm ?? settings.pathMm;
+  if (pathMm !== undefined) out.pathMm = pathMm;
+  if (settings.thicknessMm !== undefined) out.fallbackThicknessMm = settings.thicknessMm;
+  const targetName = row?.target;
+  const target = targetName ? settings.targets[targetName] : settings.target;
+  if (targetName && !target) {
+    throw new RangeError(`Manifest names target "${targetName}", which the settings do not define`);
+  }
+  if (target) out.target = { ...target, name: targetName ?? "target" };
+  if (row?.notes) out.notes = row.notes;
+  if (row?.sample) out.sampleName = row.sample;
+  if (row?.polarisation) out.polarisation = row.polarisation;
+  return out;
+}
+
+function thin(nm: Float64Array, t: Float64Array, max = 300): { nm: number[]; t: number[] } {
+  const step = Math.max(1, Math.ceil(nm.length / max));
+  const outNm: number[] = [], outT: number[] = [];
+  for (let i = 0; i < nm.length; i += step) {
+    outNm.push(Number(nm[i]!.toFixed(2)));
+    outT.push(Number(t[i]!.toFixed(5)));
+  }
+  return { nm: outNm, t: outT };
+}
+
+function resultFor(
+  measured: Spectrum,
+  file: string,
+  s: SampleSettings,
+  single: boolean,
+): SampleResult {
+  const spectrum = measured.thicknessMm === undefined && s.fallbackThicknessMm !== undefined
+    ? { ...measured, thicknessMm: s.fallbackThicknessMm }
+    : measured;
+  const warnings = [...(spectrum.meta.warnings ?? [])];
+  const { values: t, warnings: opticsWarnings } = transmittanceForPath(
+    spectrum,
+    s.pathMm,
+    s.reflection,
+  );
+  warnings.push(...opticsWarnings);
+  const colour = spectrumColour(spectrum, {
+    illuminants: s.illuminants,
+    observers: s.observers,
+    transmittance: t,
+    ...(s.pathMm === undefined ? {} : { pathMm: s.pathMm }),
+  });
+  const change = colourChange(
+    spectrum.wavelengthNm,
+    t,
+    s.change.from,
+    s.change.to,
+    s.change.observer,
+    s.change.adapt,
+  );
+  const swatch = (illuminant: string) => {
+    const row = spectrumColour(spectrum, {
+      illuminants: [illuminant],
+      observers: [s.change.observer],
+      transmittance: t,
+    })[0]!;
+    return swatchFromXyz(row, { X: row.whiteX, Y: row.whiteY, Z: row.whiteZ }).srgb.css;
+  };
+  let series: ThicknessSeries | null = null;
+  if (spectrum.thicknessMm !== undefined || spectrum.quantity === "alpha") {
+    series = thicknessSeries(spectrum, {
+      ...s.series,
+      illuminant: s.change.from,
+      observer: s.change.observer,
+      reflection: s.reflection,
+    });
+  } else {
+    warnings.push("no thickness known: thickness series skipped");
+  }
+  let target: SampleResult["target"] = null;
+  if (s.target) {
+    const row = spectrumColour(spectrum, {
+      illuminants: [s.target.illuminant],
+      observers: [s.target.observer],
+      transmittance: t,
+    })[0]!;
+    target = {
+      ...checkTarget({ L: row.L, a: row.a, b: row.b }, s.target, s.target.toleranceDE00),
+      name: s.target.name,
+      illuminant: s.target.illuminant,
+      observer: s.target.observer,
+      L: s.target.L,
+      a: s.target.a,
+      b: s.target.b,
+    };
+  }
+  return {
+    sample: single && s.sampleName ? s.sampleName : spectrum.meta.sample,
+    file,
+    quantity: spectrum.quantity,
+    thicknessMm: spectrum.thicknessMm ?? null,
+    pathMm: s.pathMm ?? spectrum.thicknessMm ?? null,
+    polarisation: spectrum.polarisation ?? s.polarisation ?? null,
+    host: typeof s.reflection.host === "string"
+      ? s.reflection.host
+      : s.reflection.host?.name ?? null,
+    notes: s.notes ?? "",
+    extra: s.extra,
+    warnings,
+    colour,
+    change: {
+      ...change,
+      swatchFrom: swatch(s.change.from),
+      swatchTo: swatch(s.change.to),
+      marked: Math.abs(change.dh) >= s.changeHueThresholdDeg,
+    },
+    series,
+    target,
+    plot: thin(spectrum.wavelengthNm, t),
+  };
+}
+
+/**
+ * Computes the results for the spectra in one file's bytes.
+ *
+ * @throws {InputError} For unreadable content; {RangeError} for settings that do not fit it.
+ */
+export function processFile(bytes: Uint8Array, file: string, s: SampleSettings): SampleResult[] {
+  const spectra = readSpectraFromBytes(bytes, file, s.read);
+  return spectra.map((spectrum) => resultFor(spectrum, file, s, spectra.length === 1));
+}

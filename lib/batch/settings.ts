@@ -1,0 +1,240 @@
+/**
+ * Batch settings: defaults, a settings file in JSON or YAML, validation with clear messages.
+ *
+ * @module
+ */
+import { parse as parseYaml } from "yaml";
+import { getIlluminant } from "../cie/illuminants.ts";
+import { getObserver } from "../cie/observers.ts";
+import { getHost } from "../optics/refractive_index.ts";
+import { axisFromText, ordinateFromText } from "../io/header_units.ts";
+
+/** A target colour with its tolerance. */
+export interface TargetSetting {
+  L: number;
+  a: number;
+  b: number;
+  illuminant: string;
+  observer: string;
+  /** Pass when ΔE00 ≤ this (common practice in production control, not a standard). */
+  toleranceDE00: number;
+}
+
+/** Everything a batch run is configured by. */
+export interface BatchSettings {
+  illuminants: string[];
+  observers: string[];
+  change: { from: string; to: string; observer: string; adapt: "none" | "cat16" | "bradford" };
+  /** Default path length for the finished stone, mm (a manifest column overrides it). */
+  pathMm?: number;
+  /** Default measured thickness, mm, when neither file nor manifest says. */
+  thicknessMm?: number;
+  reflection: "none" | "host";
+  host?: string;
+  n?: number;
+  ordinate?: string;
+  axis?: string;
+  /** The target every sample is checked against, unless the manifest names another. */
+  target?: TargetSetting;
+  /** Named targets the manifest's `target` column may refer to. */
+  targets: Record<string, TargetSetting>;
+  series: { fromMm: number; toMm: number; steps: number };
+  /** Hue difference (degrees) from which a D65→A change is called marked (common practice). */
+  changeHueThresholdDeg: number;
+}
+
+/** A problem with the settings file (a usage error, exit code 1). */
+export class SettingsError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = "SettingsError";
+  }
+}
+
+/** The defaults. */
+export function defaultSettings(): BatchSettings {
+  return {
+    illuminants: ["D65", "A"],
+    observers: ["2", "10"],
+    change: { from: "D65", to: "A", observer: "10", adapt: "none" },
+    reflection: "none",
+    targets: {},
+    series: { fromMm: 0.5, toMm: 12, steps: 24 },
+    changeHueThresholdDeg: 20,
+  };
+}
+
+function num(v: unknown, where: string, positive = false): number {
+  const n = typeof v === "string" ? Number(v.replace(",", ".")) : v;
+  if (typeof n !== "number" || !Number.isFinite(n) || (positive && !(n > 0))) {
+    throw new SettingsError(
+      `Setting ${where} must be a ${positive ? "positive " : ""}number, got ${JSON.stringify(v)}`,
+    );
+  }
+  return n;
+}
+
+function target(v: unknown, where: string): TargetSetting {
+  if (typeof v === "string") {
+    const parts = v.split(/[,;\s]+/).filter(Boolean);
+    if (parts.length !== 3) throw new SettingsError(`Setting ${where} must be "L,a,b", got "${v}"`);
+    return target({ L: parts[0], a: parts[1], b: parts[2] }, where);
+  }
+  if (!v || typeof v !== "object") {
+    throw new SettingsError(`Setting ${where} must be an object with L, a, b`);
+  }
+  const o = v as Record<string, unknown>;
+  const t: TargetSetting = {
+    L: num(o.L, `${where}.L`),
+    a: num(o.a, `${where}.a`),
+    b: num(o.b, `${where}.b`),
+    illuminant: String(o.illuminant ?? "D65"),
+    observer: String(o.observer ?? "10"),
+    toleranceDE00: o.toleranceDE00 === undefined
+      ? 2
+      : num(o.toleranceDE00, `${where}.toleranceDE00`, true),
+  };
+  check(() => getIlluminant(t.illuminant), `${where}.illuminant`);
+  check(() => getObserver(t.observer), `${where}.observer`);
+  return t;
+}
+
+function check(f: () => unknown, where: string) {
+  try {
+    f();
+  } catch (e) {
+    throw new SettingsError(`Setting ${where}: ${(e as Error).message}`);
+  }
+}
+
+/**
+ * Validates a settings object (from JSON or YAML) on top of the defaults.
+ *
+ * @throws {SettingsError} Naming the setting and what is wrong with it.
+ */
+export function resolveSettings(raw: unknown): BatchSettings {
+  const s = defaultSettings();
+  if (raw === null || raw === undefined) return s;
+  if (typeof raw !== "object" || Array.isArray(raw)) {
+    throw new SettingsError("Settings must be a mapping of names to values");
+  }
+  const o = raw as Record<string, unknown>;
+  const known = new Set([
+    "illuminants",
+    "observers",
+    "change",
+    "pathMm",
+    "thicknessMm",
+    "reflection",
+    "host",
+    "n",
+    "ordinate",
+    "axis",
+    "target",
+    "targets",
+    "series",
+    "changeHueThresholdDeg",
+  ]);
+  for (const k of Object.keys(o)) {
+    if (!known.has(k)) throw new SettingsError(`Unknown setting "${k}"`);
+  }
+  const list = (
+    v: unknown,
+  ) => (Array.isArray(v) ? v.map(String) : String(v).split(",").map((x) => x.trim()));
+  if (o.illuminants !== undefined) s.illuminants = list(o.illuminants);
+  if (o.observers !== undefined) s.observers = list(o.observers);
+  s.illuminants.forEach((i) => check(() => getIlluminant(i), "illuminants"));
+  s.observers.forEach((i) => check(() => getObserver(i), "observers"));
+  if (o.change !== undefined) {
+    const c = o.change as Record<string, unknown>;
+    s.change = {
+      from: String(c.from ?? s.change.from),
+      to: String(c.to ?? s.change.to),
+      observer: String(c.observer ?? s.change.observer),
+      adapt: (c.adapt ?? "none") as BatchSettings["change"]["adapt"],
+    };
+    check(() => getIlluminant(s.change.from), "change.from");
+    check(() => getIlluminant(s.change.to), "change.to");
+    check(() => getObserver(s.change.observer), "change.observer");
+    if (!["none", "cat16", "bradford"].includes(s.change.adapt)) {
+      throw new SettingsError(`Setting change.adapt must be none, cat16 or bradford`);
+    }
+  }
+  if (o.pathMm !== undefined) s.pathMm = num(o.pathMm, "pathMm", true);
+  if (o.thicknessMm !== undefined) s.thicknessMm = num(o.thicknessMm, "thicknessMm", true);
+  if (o.reflection !== undefined) {
+    if (o.reflection !== "none" && o.reflection !== "host") {
+      throw new SettingsError(`Setting reflection must be none or host`);
+    }
+    s.reflection = o.reflection;
+  }
+  if (o.host !== undefined) {
+    s.host = String(o.host);
+    check(() => getHost(s.host!), "host");
+  }
+  if (o.n !== undefined) s.n = num(o.n, "n", true);
+  if (o.ordinate !== undefined) {
+    s.ordinate = String(o.ordinate);
+    if (!ordinateFromText(s.ordinate)) {
+      throw new SettingsError(`Setting ordinate: unknown kind "${s.ordinate}"`);
+    }
+  }
+  if (o.axis !== undefined) {
+    s.axis = String(o.axis);
+    if (!axisFromText(s.axis)) throw new SettingsError(`Setting axis: unknown unit "${s.axis}"`);
+  }
+  if (o.target !== undefined) s.target = target(o.target, "target");
+  if (o.targets !== undefined) {
+    if (!o.targets || typeof o.targets !== "object") {
+      throw new SettingsError("Setting targets must be a mapping");
+    }
+    for (const [name, t] of Object.entries(o.targets as Record<string, unknown>)) {
+      s.targets[name] = target(t, `targets.${name}`);
+    }
+  }
+  if (o.series !== undefined) {
+    const r = o.series as Record<string, unknown>;
+    s.series = {
+      fromMm: r.fromMm === undefined ? s.series.fromMm : num(r.fromMm, "series.fromMm", true),
+      toMm: r.toMm === undefined ? s.series.toMm : num(r.toMm, "series.toMm", true),
+      steps: r.steps === undefined
+        ? s.series.steps
+        : Math.round(num(r.steps, "series.steps", true)),
+    };
+    if (s.series.toMm <= s.series.fromMm) {
+      throw new SettingsError("Setting series.toMm must exceed series.fromMm");
+    }
+  }
+  if (o.changeHueThresholdDeg !== undefined) {
+    s.changeHueThresholdDeg = num(o.changeHueThresholdDeg, "changeHueThresholdDeg", true);
+  }
+  if (s.reflection === "host" && s.host === undefined && s.n === undefined) {
+    // a host may come per sample from the manifest; checked per sample
+  }
+  return s;
+}
+
+/**
+ * Reads a settings file (`.json`, `.yaml` or `.yml`).
+ *
+ * @throws {SettingsError} When the file cannot be read or parsed, or a value is wrong.
+ */
+export async function readSettingsFile(path: string): Promise<BatchSettings> {
+  let text: string;
+  try {
+    text = await Deno.readTextFile(path);
+  } catch (e) {
+    throw new SettingsError(`Cannot read settings file ${path}: ${(e as Error).message}`);
+  }
+  let raw: unknown;
+  try {
+    raw = /\.json$/i.test(path) ? JSON.parse(text) : parseYaml(text);
+  } catch (e) {
+    throw new SettingsError(`Cannot parse settings file ${path}: ${(e as Error).message}`);
+  }
+  try {
+    return resolveSettings(raw);
+  } catch (e) {
+    throw new SettingsError(`${path}: ${(e as Error).message}`);
+  }
+}

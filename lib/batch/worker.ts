@@ -1,0 +1,28 @@
+/// <reference lib="deno.worker" />
+/**
+ * Batch worker: computes the results of one file per message (see sample_result.ts).
+ *
+ * @module
+ */
+import { processFile, type SampleSettings } from "./sample_result.ts";
+import { InputError } from "../io/input_error.ts";
+
+/** A job sent to the worker. */
+export interface WorkerJob {
+  id: number;
+  file: string;
+  bytes: Uint8Array<ArrayBuffer>;
+  settings: SampleSettings;
+}
+
+self.onmessage = (event: MessageEvent<WorkerJob>) => {
+  const { id, file, bytes, settings } = event.data;
+  try {
+    self.postMessage({ id, ok: true, results: processFile(bytes, file, settings) });
+  } catch (e) {
+    const error = e instanceof InputError
+      ? { message: e.message, problem: e.problem, line: e.line ?? null }
+      : { message: `${file}: ${(e as Error).message}`, problem: "processing", line: null };
+    self.postMessage({ id, ok: false, error });
+  }
+};

@@ -1,0 +1,6 @@
+/**
+ * Dopant levels and target colour.
+ *
+ * @module
+ */
+export * from "./target.ts";

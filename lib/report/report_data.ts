@@ -1,0 +1,166 @@
+/**
+ * The report's view of batch results: one small summary row per sample (always) and a detail
+ * record per sample (charts data), both plain JSON.
+ *
+ * @module
+ */
+import type { SampleResult } from "../batch/sample_result.ts";
+import { spectralLocus } from "../cie/dominant_wavelength.ts";
+
+/** One line of the summary table. */
+export interface ReportRow {
+  index: number;
+  sample: string;
+  file: string;
+  from: string;
+  to: string;
+  observer: string;
+  pathMm: number | null;
+  lchFrom: [number, number, number];
+  lchTo: [number, number, number];
+  swatchFrom: string;
+  swatchTo: string;
+  dE00: number;
+  dh: number;
+  marked: boolean;
+  target: { name: string; pass: boolean; dE00: number; words: string } | null;
+  dopant: string | null;
+  warnings: string[];
+  notes: string;
+  outOfGamut: boolean;
+}
+
+/** Chart data for one sample. */
+export interface ReportDetail {
+  sample: string;
+  file: string;
+  plot: { nm: number[]; t: number[] };
+  bands: { nm: number[]; model: number[]; residual: number[] } | null;
+  series:
+    | { pathMm: number[]; L: number[]; C: number[]; srgb: string[]; maxChromaPathMm: number }
+    | null;
+  xy: { illuminant: string; observer: string; x: number; y: number }[];
+  abFrom: [number, number];
+  abTo: [number, number];
+  colour: {
+    illuminant: string;
+    observer: string;
+    L: number;
+    a: number;
+    b: number;
+    C: number;
+    h: number;
+    srgb: string;
+    dominantNm: number | null;
+    complementary: boolean;
+    purity: number | null;
+  }[];
+  extra: Record<string, string>;
+  thicknessMm: number | null;
+  polarisation: string | null;
+  host: string | null;
+}
+
+/** Everything the report is rendered from. */
+export interface ReportInput {
+  version: string;
+  settingsSummary: Record<string, string>;
+  rows: ReportRow[];
+  /** Detail records by row index (possibly for only the first `detailLimit` rows). */
+  details: Record<number, ReportDetail>;
+  detailLimit: number;
+  errors: { file: string; message: string }[];
+  manifestNotes: string[];
+  locus: { nm: number[]; x: number[]; y: number[] };
+}
+
+const r = (v: number, d = 2) => Number(v.toFixed(d));
+
+/** The summary row of a sample result. */
+export function reportRow(result: SampleResult, index: number): ReportRow {
+  const c = result.change;
+  return {
+    index,
+    sample: result.sample,
+    file: result.file,
+    from: c.from,
+    to: c.to,
+    observer: c.observer,
+    pathMm: result.pathMm,
+    lchFrom: [r(c.labFrom.L), r(c.chromaFrom), r(c.hueFrom, 1)],
+    lchTo: [r(c.labTo.L), r(c.chromaTo), r(c.hueTo, 1)],
+    swatchFrom: c.swatchFrom,
+    swatchTo: c.swatchTo,
+    dE00: r(c.dE00),
+    dh: r(c.dh, 1),
+    marked: c.marked,
+    target: result.target
+      ? {
+        name: result.target.name,
+        pass: result.target.pass,
+        dE00: r(result.target.dE00),
+        words: result.target.words,
+      }
+      : null,
+    dopant: null,
+    warnings: result.warnings,
+    notes: result.notes,
+    outOfGamut: result.colour.some((row) => row.srgbOutOfGamut),
+  };
+}
+
+/** The chart data of a sample result. */
+export function reportDetail(result: SampleResult): ReportDetail {
+  const c = result.change;
+  return {
+    sample: result.sample,
+    file: result.file,
+    plot: result.plot,
+    bands: null,
+    series: result.series
+      ? {
+        pathMm: result.series.points.map((p) => r(p.pathMm, 3)),
+        L: result.series.points.map((p) => r(p.L)),
+        C: result.series.points.map((p) => r(p.C)),
+        srgb: result.series.points.map((p) => p.srgb),
+        maxChromaPathMm: r(result.series.maxChromaPathMm, 2),
+      }
+      : null,
+    xy: result.colour.filter((row) => row.observer === "2").map((row) => ({
+      illuminant: row.illuminant,
+      observer: row.observer,
+      x: r(row.x, 5),
+      y: r(row.y, 5),
+    })),
+    abFrom: [r(c.labFrom.a), r(c.labFrom.b)],
+    abTo: [r(c.labTo.a), r(c.labTo.b)],
+    colour: result.colour.map((row) => ({
+      illuminant: row.illuminant,
+      observer: row.observer,
+      L: r(row.L),
+      a: r(row.a),
+      b: r(row.b),
+      C: r(row.C),
+      h: r(row.h, 1),
+      srgb: row.srgb,
+      dominantNm: row.dominantNm === null ? null : r(row.dominantNm, 1),
+      complementary: row.complementary,
+      purity: row.purity === null ? null : r(row.purity, 3),
+    })),
+    extra: result.extra,
+    thicknessMm: result.thicknessMm,
+    polarisation: result.polarisation,
+    host: result.host,
+  };
+}
+
+/** The CIE 1931 2° spectral locus, 380–700 nm at 1 nm, for the chromaticity diagram. */
+export function locusForReport(): ReportInput["locus"] {
+  const l = spectralLocus("2");
+  const keep = l.nm.map((nm, i) => (nm >= 380 && nm <= 700 ? i : -1)).filter((i) => i >= 0);
+  return {
+    nm: keep.map((i) => l.nm[i]!),
+    x: keep.map((i) => r(l.x[i]!, 5)),
+    y: keep.map((i) => r(l.y[i]!, 5)),
+  };
+}

@@ -1,0 +1,184 @@
+/**
+ * The report's own browser script (runs after the inlined chart.js). It reads the embedded
+ * JSON, sorts the summary table, draws the lot charts, and renders one sample's detail on
+ * demand. User strings only ever reach the page through textContent.
+ */
+export const REPORT_SCRIPT = `
+(function () {
+  "use strict";
+  var data = JSON.parse(document.getElementById("crystint-data").textContent);
+  var DAY = "#2c6e73", LAMP = "#b5651d", INK = "#1e2a32", RULE = "#d9d2c3";
+  Chart.defaults.animation = false;
+  Chart.defaults.font.family = "'Source Sans 3', 'Segoe UI', system-ui, sans-serif";
+  Chart.defaults.color = "#5d6b73";
+  Chart.defaults.maintainAspectRatio = false;
+
+  // Arrows in the a*b* plane: pairs [a1, b1, a2, b2] drawn as lines with heads.
+  Chart.register({
+    id: "abArrows",
+    afterDatasetsDraw: function (chart) {
+      var opts = chart.options.plugins.abArrows;
+      if (!opts || !opts.pairs) return;
+      var ctx = chart.ctx, xs = chart.scales.x, ys = chart.scales.y;
+      ctx.save();
+      ctx.lineWidth = 1.4;
+      opts.pairs.forEach(function (p) {
+        var x1 = xs.getPixelForValue(p[0]), y1 = ys.getPixelForValue(p[1]);
+        var x2 = xs.getPixelForValue(p[2]), y2 = ys.getPixelForValue(p[3]);
+        ctx.strokeStyle = p[4] || INK;
+        ctx.fillStyle = p[4] || INK;
+        ctx.beginPath(); ctx.moveTo(x1, y1); ctx.lineTo(x2, y2); ctx.stroke();
+        var ang = Math.atan2(y2 - y1, x2 - x1), h = 7;
+        ctx.beginPath(); ctx.moveTo(x2, y2);
+        ctx.lineTo(x2 - h * Math.cos(ang - 0.4), y2 - h * Math.sin(ang - 0.4));
+        ctx.lineTo(x2 - h * Math.cos(ang + 0.4), y2 - h * Math.sin(ang + 0.4));
+        ctx.closePath(); ctx.fill();
+      });
+      ctx.restore();
+    }
+  });
+
+  function locusDataset() {
+    var pts = data.locus.x.map(function (x, i) { return { x: x, y: data.locus.y[i] }; });
+    pts.push(pts[0]);
+    return { label: "spectral locus (CIE 1931 2°)", data: pts, showLine: true, pointRadius: 0,
+      borderColor: INK, borderWidth: 1.2, fill: false };
+  }
+  var WHITES = { D65: [0.31272, 0.32903], A: [0.44757, 0.40745] };
+  function xyChart(canvas, points) {
+    var byIll = {};
+    points.forEach(function (p) { (byIll[p.illuminant] = byIll[p.illuminant] || []).push({ x: p.x, y: p.y }); });
+    var sets = [locusDataset()];
+    Object.keys(byIll).forEach(function (ill) {
+      sets.push({ label: "samples under " + ill, data: byIll[ill], pointRadius: 3.5,
+        backgroundColor: ill === "A" ? LAMP : ill === "D65" ? DAY : "#7b5ea7" });
+      if (WHITES[ill]) sets.push({ label: ill + " white", data: [{ x: WHITES[ill][0], y: WHITES[ill][1] }],
+        pointStyle: "crossRot", pointRadius: 7, borderColor: ill === "A" ? LAMP : DAY, borderWidth: 2 });
+    });
+    return new Chart(canvas, { type: "scatter", data: { datasets: sets },
+      options: { scales: { x: { min: 0, max: 0.8, title: { display: true, text: "x" } },
+        y: { min: 0, max: 0.9, title: { display: true, text: "y" } } },
+        plugins: { legend: { position: "bottom" } } } });
+  }
+  function abChart(canvas, pairs, from, to) {
+    var lim = 10;
+    pairs.forEach(function (p) { lim = Math.max(lim, Math.abs(p[0]), Math.abs(p[1]), Math.abs(p[2]), Math.abs(p[3])); });
+    lim = Math.ceil(lim / 10) * 10;
+    return new Chart(canvas, { type: "scatter",
+      data: { datasets: [
+        { label: "under " + from, data: pairs.map(function (p) { return { x: p[0], y: p[1] }; }), backgroundColor: DAY, pointRadius: 3.5 },
+        { label: "under " + to, data: pairs.map(function (p) { return { x: p[2], y: p[3] }; }), backgroundColor: LAMP, pointRadius: 3.5 }
+      ] },
+      options: { scales: { x: { min: -lim, max: lim, title: { display: true, text: "a*" }, grid: { color: RULE } },
+        y: { min: -lim, max: lim, title: { display: true, text: "b*" }, grid: { color: RULE } } },
+        plugins: { legend: { position: "bottom" }, abArrows: { pairs: pairs.map(function (p) { return p.concat([INK]); }) } } } });
+  }
+
+  // Summary table sorting.
+  var table = document.getElementById("summary");
+  if (table) {
+    table.querySelectorAll("th[data-key]").forEach(function (th, col) {
+      th.addEventListener("click", function () {
+        var dir = th.getAttribute("aria-sort") === "ascending" ? "descending" : "ascending";
+        table.querySelectorAll("th").forEach(function (o) { o.removeAttribute("aria-sort"); });
+        th.setAttribute("aria-sort", dir);
+        var body = table.tBodies[0];
+        var rows = Array.prototype.slice.call(body.rows);
+        var idx = Array.prototype.indexOf.call(th.parentNode.children, th);
+        rows.sort(function (a, b) {
+          var va = a.cells[idx].getAttribute("data-value"), vb = b.cells[idx].getAttribute("data-value");
+          var na = parseFloat(va), nb = parseFloat(vb), r;
+          r = (!isNaN(na) && !isNaN(nb)) ? na - nb : String(va).localeCompare(String(vb));
+          return dir === "ascending" ? r : -r;
+        });
+        rows.forEach(function (r) { body.appendChild(r); });
+      });
+    });
+  }
+
+  // Lot overview.
+  var allXy = [], allPairs = [];
+  data.rows.forEach(function (row) {
+    var d = data.details[row.index];
+    if (d) { allXy = allXy.concat(d.xy); allPairs.push([d.abFrom[0], d.abFrom[1], d.abTo[0], d.abTo[1]]); }
+  });
+  var first = data.rows[0];
+  if (document.getElementById("xy-all")) xyChart(document.getElementById("xy-all"), allXy);
+  if (document.getElementById("ab-all")) abChart(document.getElementById("ab-all"), allPairs, first ? first.from : "D65", first ? first.to : "A");
+
+  // Detail on demand.
+  var charts = [];
+  function text(id, value) { var el = document.getElementById(id); if (el) el.textContent = value; }
+  function showDetail(index) {
+    var d = data.details[index], row = data.rows.filter(function (r) { return r.index === index; })[0];
+    var box = document.getElementById("detail");
+    if (!d || !row || !box) return;
+    charts.forEach(function (c) { c.destroy(); }); charts = [];
+    box.hidden = false;
+    document.querySelectorAll("#summary tbody tr").forEach(function (tr) {
+      tr.classList.toggle("open", tr.getAttribute("data-index") === String(index));
+    });
+    text("detail-name", d.sample);
+    text("detail-file", d.file);
+    var facts = document.getElementById("detail-facts");
+    facts.textContent = "";
+    function fact(k, v) {
+      var dt = document.createElement("dt"); dt.textContent = k;
+      var dd = document.createElement("dd"); dd.textContent = v;
+      facts.appendChild(dt); facts.appendChild(dd);
+    }
+    fact("path for colour", row.pathMm === null ? "as measured" : row.pathMm + " mm");
+    fact("measured thickness", d.thicknessMm === null ? "not given" : d.thicknessMm + " mm");
+    if (d.polarisation) fact("polarisation", d.polarisation);
+    if (d.host) fact("host", d.host);
+    d.colour.forEach(function (c) {
+      fact(c.illuminant + " / " + c.observer + "°", "L* " + c.L + "  C* " + c.C + "  h " + c.h + "°" +
+        (c.dominantNm === null ? "" : "  λ" + (c.complementary ? "c " : "d ") + c.dominantNm + " nm, pe " + c.purity));
+    });
+    fact("change " + row.from + " → " + row.to, "ΔE00 " + row.dE00 + ", Δh " + row.dh + "°");
+    if (row.target) fact("target " + row.target.name, (row.target.pass ? "pass" : "fail") + " (ΔE00 " + row.target.dE00 + "; " + row.target.words + ")");
+    Object.keys(d.extra || {}).forEach(function (k) { if (d.extra[k]) fact(k, d.extra[k]); });
+    if (row.notes) fact("notes", row.notes);
+    row.warnings.forEach(function (w) { fact("note", w); });
+    document.getElementById("detail-swatch-from").style.background = row.swatchFrom;
+    document.getElementById("detail-swatch-to").style.background = row.swatchTo;
+
+    var spec = [{ label: "T at " + (row.pathMm === null ? "measured path" : row.pathMm + " mm"),
+      data: d.plot.nm.map(function (x, i) { return { x: x, y: d.plot.t[i] }; }),
+      showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.5 }];
+    if (d.bands) {
+      spec.push({ label: "band fit", data: d.bands.nm.map(function (x, i) { return { x: x, y: d.bands.model[i] }; }),
+        showLine: true, pointRadius: 0, borderColor: LAMP, borderDash: [5, 3], yAxisID: "y2" });
+      spec.push({ label: "residual", data: d.bands.nm.map(function (x, i) { return { x: x, y: d.bands.residual[i] }; }),
+        showLine: true, pointRadius: 0, borderColor: "#9aa5ab", yAxisID: "y2" });
+    }
+    var specScales = { x: { type: "linear", title: { display: true, text: "wavelength (nm)" } },
+      y: { min: 0, max: 1, title: { display: true, text: "transmittance" } } };
+    if (d.bands) specScales.y2 = { position: "right", title: { display: true, text: "absorbance (fit)" }, grid: { display: false } };
+    charts.push(new Chart(document.getElementById("chart-spectrum"), { type: "scatter", data: { datasets: spec },
+      options: { scales: specScales, plugins: { legend: { position: "bottom" } } } }));
+    charts.push(xyChart(document.getElementById("chart-xy"), d.xy));
+    charts.push(abChart(document.getElementById("chart-ab"), [[d.abFrom[0], d.abFrom[1], d.abTo[0], d.abTo[1]]], row.from, row.to));
+    var sc = document.getElementById("chart-series");
+    if (d.series) {
+      sc.parentNode.hidden = false;
+      charts.push(new Chart(sc, { type: "scatter", data: { datasets: [
+        { label: "L*", data: d.series.pathMm.map(function (x, i) { return { x: x, y: d.series.L[i] }; }), showLine: true,
+          borderColor: INK, pointBackgroundColor: d.series.srgb, pointRadius: 5 },
+        { label: "C*ab", data: d.series.pathMm.map(function (x, i) { return { x: x, y: d.series.C[i] }; }), showLine: true,
+          borderColor: DAY, borderDash: [4, 3], pointRadius: 0 }
+      ] }, options: { scales: { x: { title: { display: true, text: "path length (mm)" } }, y: { min: 0, max: 100 } },
+        plugins: { legend: { position: "bottom" } } } }));
+      text("series-note", "Maximum chroma at " + d.series.maxChromaPathMm + " mm (" + row.from + ").");
+    } else {
+      sc.parentNode.hidden = true;
+      text("series-note", "No thickness is known for this sample, so no thickness series.");
+    }
+  }
+  document.querySelectorAll("button.detail").forEach(function (b) {
+    b.addEventListener("click", function () { showDetail(Number(b.getAttribute("data-index"))); });
+  });
+  window.crystintShowDetail = showDetail;
+  if (first && data.details[first.index]) showDetail(first.index);
+})();
+`;
