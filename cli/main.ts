@@ -7,6 +7,7 @@ import { colorCommand } from "./color.ts";
 import { changeCommand } from "./change.ts";
 import { batchCommand } from "./batch.ts";
 import { reportCommand } from "./report.ts";
+import { bandsCommand } from "./bands.ts";
 import { EXIT, log, UsageError } from "./_shared.ts";
 
 const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
@@ -17,6 +18,7 @@ Usage:
 Commands:
   color     CIE colour (XYZ, xy, L*a*b*, LCh, swatches) of spectra under chosen illuminants
   change    colour change between two illuminants (ΔE00, ΔL*, ΔC*, Δh)
+  bands     detect and fit absorption bands in wavenumber, with assignment hints
   batch     process folders of exports into results.csv, results.json and an HTML report
   report    re-render the HTML report from a saved results.json
 
@@ -29,6 +31,7 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   change: changeCommand,
   batch: batchCommand,
   report: reportCommand,
+  bands: bandsCommand,
 };
 
 /** Runs crystint with the given arguments and returns the exit code. */

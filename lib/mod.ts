@@ -21,3 +21,4 @@ export * from "./dopant/mod.ts";
 export * from "./report/mod.ts";
 export * from "./batch/mod.ts";
 export { VERSION } from "./version.ts";
+export * from "./bands/mod.ts";

@@ -34,7 +34,7 @@ type Band = [centreCm1: number, fwhmCm1: number, alphaPerUnit: number];
 const HOSTS: Record<string, { bands: Band[]; scatter: number }> = {
   "corundum-cr": { bands: [[18000, 3000, 14], [24400, 4200, 24], [14405, 25, 6]], scatter: 0.04 },
   "chrysoberyl-cr-a": {
-    bands: [[17300, 2600, 16], [23900, 3100, 15], [14690, 30, 4]],
+    bands: [[17600, 2400, 40], [24000, 3400, 40], [14690, 30, 4]],
     scatter: 0.05,
   },
   "chrysoberyl-cr-c": {
@@ -250,7 +250,7 @@ observers: ["2", "10"]
 change: { from: D65, to: A, observer: "10" }
 reflection: host
 targets:
-  pink-sapphire: { L: 50, a: 38, b: -8, illuminant: D65, observer: "10", toleranceDE00: 4 }
+  pink-sapphire: { L: 45, a: 15, b: 6, illuminant: D65, observer: "10", toleranceDE00: 3 }
 `,
 );
 console.log(`wrote ${stones.length + 2} exports and manifest.csv to spectra/demo/`);

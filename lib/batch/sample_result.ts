@@ -15,6 +15,8 @@ import { type ThicknessSeries, thicknessSeries } from "../cie/thickness_series.t
 import { swatchFromXyz } from "../cie/swatch.ts";
 import { checkTarget, type TargetCheck } from "../dopant/target.ts";
 import type { BatchSettings, TargetSetting } from "./settings.ts";
+import { type BandFit, fitSpectrumBands } from "../bands/fit_bands.ts";
+import { assignBands, type BandAssignment } from "../bands/assign_bands.ts";
 import type { ManifestRow } from "./manifest.ts";
 
 /** Settings for one file after the manifest row is applied. */
@@ -64,6 +66,15 @@ export interface SampleResult {
     | null;
   /** Transmittance at the reporting path, thinned to at most 300 points, for the charts. */
   plot: { nm: number[]; t: number[] };
+  /** Fitted bands of the measured absorbance (or α), with assignment hints; null if not fitted. */
+  bands: {
+    ordinate: BandFit["ordinate"];
+    bands: BandFit["bands"];
+    baseline: BandFit["baseline"];
+    residualRms: number;
+    assignments: BandAssignment[];
+    curve: { nm: number[]; data: number[]; model: number[] };
+  } | null;
 }
 
 /** Applies a manifest row on top of the batch settings. */
@@ -182,7 +193,31 @@ function resultFor(
       b: s.target.b,
     };
   }
+  let bands: SampleResult["bands"] = null;
+  try {
+    const fit = fitSpectrumBands(spectrum);
+    const step = Math.max(1, Math.ceil(fit.curve.cm1.length / 300));
+    const pick = (a: Float64Array) => [...a].filter((_, i) => i % step === 0);
+    bands = {
+      ordinate: fit.ordinate,
+      bands: fit.bands,
+      baseline: fit.baseline,
+      residualRms: fit.residualRms,
+      assignments: assignBands(
+        fit.bands,
+        typeof s.reflection.host === "string" ? s.reflection.host : s.reflection.host?.name,
+      ),
+      curve: {
+        nm: pick(fit.curve.cm1).map((v) => Number((1e7 / v).toFixed(2))),
+        data: pick(fit.curve.data).map((v) => Number(v.toFixed(5))),
+        model: pick(fit.curve.model).map((v) => Number(v.toFixed(5))),
+      },
+    };
+  } catch (e) {
+    warnings.push(`band fit skipped: ${(e as Error).message}`);
+  }
   return {
+    bands,
     sample: single && s.sampleName ? s.sampleName : spectrum.meta.sample,
     file,
     quantity: spectrum.quantity,

@@ -20,6 +20,7 @@ const METHODS = [
   "CIELAB relative to the white of the illuminant used; the colour change compares each light under its own white (or after CAT16/Bradford adaptation when set). ΔE00 per Sharma, Wu & Dalal, Color Res. Appl. 30, 21 (2005).",
   "Path-length rescaling by Beer–Lambert on the measured absorbance, or with both Fresnel surfaces removed and restored using the host's refractive index (incoherent slab formula).",
   "Swatches: Bradford adaptation to D65, sRGB (IEC 61966-2-1); colours outside sRGB are marked ◆ and shown with reduced CIELAB chroma at constant L* and hue.",
+  "Bands: sum of Gaussians in wavenumber (Lorentzian below 150 cm⁻¹ FWHM) plus a baseline with a λ⁻⁴ scatter term, bounded Levenberg–Marquardt, 1σ standard errors from the covariance; assignments are hints from a catalogue whose figures are marked published or from memory.",
   "A marked colour change (tag) means |Δh| at or above the threshold in the settings — a common-practice threshold, not a standard.",
 ];
 
@@ -132,6 +133,8 @@ ${
 <div class="card big"><p><span class="swatches"><span id="detail-swatch-from"></span><span id="detail-swatch-to"></span></span></p>
 <p><small id="detail-file"></small></p><dl class="facts" id="detail-facts"></dl></div>
 <div class="card"><h3>Transmittance</h3><div class="chart"><canvas id="chart-spectrum"></canvas></div></div>
+<div class="card"><h3>Absorption bands (fit in wavenumber)</h3><div class="chart"><canvas id="chart-bands"></canvas></div>
+<table class="summary"><thead><tr><th>centre</th><th>FWHM</th><th>height</th><th>assignment hint</th></tr></thead><tbody id="bands-table"></tbody></table></div>
 <div class="card"><h3>Chromaticity</h3><div class="chart"><canvas id="chart-xy"></canvas></div></div>
 <div class="card"><h3>a* b*, ${e(from)} → ${
     e(to)

@@ -35,7 +35,20 @@ export interface ReportDetail {
   sample: string;
   file: string;
   plot: { nm: number[]; t: number[] };
-  bands: { nm: number[]; model: number[]; residual: number[] } | null;
+  bands: {
+    nm: number[];
+    data: number[];
+    model: number[];
+    residual: number[];
+    ordinate: string;
+    table: {
+      centerNm: number;
+      centerNmSigma: number;
+      fwhmCm1: number;
+      height: number;
+      assignment: string;
+    }[];
+  } | null;
   series:
     | { pathMm: number[]; L: number[]; C: number[]; srgb: string[]; maxChromaPathMm: number }
     | null;
@@ -74,7 +87,10 @@ export interface ReportInput {
   locus: { nm: number[]; x: number[]; y: number[] };
 }
 
-const r = (v: number, d = 2) => Number(v.toFixed(d));
+const r = (
+  v: number | null,
+  d = 2,
+): number => (typeof v === "number" && Number.isFinite(v) ? Number(v.toFixed(d)) : NaN);
 
 /** The summary row of a sample result. */
 export function reportRow(result: SampleResult, index: number): ReportRow {
@@ -116,7 +132,24 @@ export function reportDetail(result: SampleResult): ReportDetail {
     sample: result.sample,
     file: result.file,
     plot: result.plot,
-    bands: null,
+    bands: result.bands
+      ? {
+        nm: result.bands.curve.nm,
+        model: result.bands.curve.model,
+        residual: result.bands.curve.data.map((v, i) => r(v - result.bands!.curve.model[i]!, 5)),
+        data: result.bands.curve.data,
+        ordinate: result.bands.ordinate,
+        table: result.bands.bands.map((b, i) => ({
+          centerNm: r(b.centerNm, 1),
+          centerNmSigma: r(b.centerNmSigma, 1),
+          fwhmCm1: r(b.fwhmCm1, 0),
+          height: r(b.height, 4),
+          assignment: result.bands!.assignments.filter((a) => a.bandIndex === i).map((a) =>
+            `${a.ion} ${a.transition} (score ${a.score.toFixed(2)})`
+          )[0] ?? "",
+        })),
+      }
+      : null,
     series: result.series
       ? {
         pathMm: result.series.points.map((p) => r(p.pathMm, 3)),

@@ -146,17 +146,33 @@ export const REPORT_SCRIPT = `
     var spec = [{ label: "T at " + (row.pathMm === null ? "measured path" : row.pathMm + " mm"),
       data: d.plot.nm.map(function (x, i) { return { x: x, y: d.plot.t[i] }; }),
       showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.5 }];
-    if (d.bands) {
-      spec.push({ label: "band fit", data: d.bands.nm.map(function (x, i) { return { x: x, y: d.bands.model[i] }; }),
-        showLine: true, pointRadius: 0, borderColor: LAMP, borderDash: [5, 3], yAxisID: "y2" });
-      spec.push({ label: "residual", data: d.bands.nm.map(function (x, i) { return { x: x, y: d.bands.residual[i] }; }),
-        showLine: true, pointRadius: 0, borderColor: "#9aa5ab", yAxisID: "y2" });
-    }
     var specScales = { x: { type: "linear", title: { display: true, text: "wavelength (nm)" } },
       y: { min: 0, max: 1, title: { display: true, text: "transmittance" } } };
-    if (d.bands) specScales.y2 = { position: "right", title: { display: true, text: "absorbance (fit)" }, grid: { display: false } };
     charts.push(new Chart(document.getElementById("chart-spectrum"), { type: "scatter", data: { datasets: spec },
       options: { scales: specScales, plugins: { legend: { position: "bottom" } } } }));
+    var bc = document.getElementById("chart-bands"), bt = document.getElementById("bands-table");
+    bt.textContent = "";
+    if (d.bands) {
+      bc.parentNode.parentNode.hidden = false;
+      function pts(arr) { return d.bands.nm.map(function (x, i) { return { x: x, y: arr[i] }; }); }
+      charts.push(new Chart(bc, { type: "scatter", data: { datasets: [
+        { label: "measured " + d.bands.ordinate, data: pts(d.bands.data), showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.2 },
+        { label: "fit (bands + baseline)", data: pts(d.bands.model), showLine: true, pointRadius: 0, borderColor: LAMP, borderDash: [5, 3] },
+        { label: "residual", data: pts(d.bands.residual), showLine: true, pointRadius: 0, borderColor: "#9aa5ab", yAxisID: "y2" }
+      ] }, options: { scales: { x: { type: "linear", title: { display: true, text: "wavelength (nm)" } },
+        y: { title: { display: true, text: d.bands.ordinate } },
+        y2: { position: "right", title: { display: true, text: "residual" }, grid: { display: false } } },
+        plugins: { legend: { position: "bottom" } } } }));
+      d.bands.table.forEach(function (b) {
+        var tr = document.createElement("tr");
+        [b.centerNm + " ± " + b.centerNmSigma + " nm", b.fwhmCm1 + " cm⁻¹", String(b.height), b.assignment].forEach(function (v) {
+          var td = document.createElement("td"); td.textContent = v; tr.appendChild(td);
+        });
+        bt.appendChild(tr);
+      });
+    } else {
+      bc.parentNode.parentNode.hidden = true;
+    }
     charts.push(xyChart(document.getElementById("chart-xy"), d.xy));
     charts.push(abChart(document.getElementById("chart-ab"), [[d.abFrom[0], d.abFrom[1], d.abTo[0], d.abTo[1]]], row.from, row.to));
     var sc = document.getElementById("chart-series");

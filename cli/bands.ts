@@ -1,0 +1,151 @@
+/**
+ * `crystint bands`: detect and fit absorption bands, and suggest their assignment.
+ *
+ * @module
+ */
+import { type BandFit, fitSpectrumBands } from "../lib/bands/fit_bands.ts";
+import { assignBands, type BandAssignment } from "../lib/bands/assign_bands.ts";
+import { getHost } from "../lib/optics/refractive_index.ts";
+import { EXIT, parseCommandArgs, round, toCsv, toTable, UsageError } from "./_shared.ts";
+import { forEachFile, readOptionsFrom } from "./_spectrum_options.ts";
+
+export const BANDS_HELP = `crystint bands — absorption bands fitted in wavenumber
+
+Usage:
+  crystint bands FILE… [--host NAME] [--range-nm FROM-TO] [--json|--csv] [options]
+
+Options:
+  --host NAME         host for the assignment hints (corundum, spinel, yag, chrysoberyl, beryl)
+  --range-nm A-B      fit only this wavelength range, e.g. 330-900
+  --ordinate KIND     transmittance | percent | absorbance | alpha (default: from the file)
+  --axis UNIT         nm | um | cm-1 | ev (default: from the file)
+  --thickness MM      measured thickness, mm (only used for α files)
+  --json | --csv      machine-readable output on stdout
+  -h, --help          show this help
+
+Bands are Gaussian in energy (Lorentzian for lines narrower than 150 cm⁻¹), fitted with a
+baseline b0 + b1·ν̃ + scatter·ν̃⁴ by Levenberg–Marquardt; ± are 1σ standard errors. The
+fitted ordinate is decadic absorbance as measured, or α for α files. Assignments are hints.
+
+Example:
+  crystint bands slabs/TCW-R03.csv --host corundum --range-nm 330-900 --json
+`;
+
+/** Runs the command; returns the exit code. */
+export async function bandsCommand(args: string[]): Promise<number> {
+  const { values, positionals } = parseCommandArgs(args, {
+    ordinate: { type: "string" },
+    axis: { type: "string" },
+    thickness: { type: "string" },
+    host: { type: "string" },
+    "range-nm": { type: "string" },
+    json: { type: "boolean" },
+    csv: { type: "boolean" },
+    help: { type: "boolean", short: "h" },
+  });
+  if (values.help) {
+    console.log(BANDS_HELP);
+    return EXIT.ok;
+  }
+  if (positionals.length === 0) {
+    throw new UsageError("No input files: give one or more spectrum files");
+  }
+  let host: string | undefined;
+  if (values.host !== undefined) {
+    try {
+      host = getHost(values.host).name;
+    } catch (e) {
+      throw new UsageError((e as Error).message);
+    }
+  }
+  let rangeNm: [number, number] | undefined;
+  if (values["range-nm"] !== undefined) {
+    const m = /^\s*(\d+(?:\.\d+)?)\s*[-:,]\s*(\d+(?:\.\d+)?)\s*$/.exec(values["range-nm"]);
+    if (!m || !(Number(m[2]) > Number(m[1]))) {
+      throw new UsageError(`Option --range-nm needs FROM-TO in nm, got "${values["range-nm"]}"`);
+    }
+    rangeNm = [Number(m[1]), Number(m[2])];
+  }
+  interface SampleBands {
+    sample: string;
+    file: string;
+    ordinate: BandFit["ordinate"];
+    bands: BandFit["bands"];
+    baseline: BandFit["baseline"];
+    residualRms: number;
+    noiseSigma: number;
+    converged: boolean;
+    assignments: BandAssignment[];
+  }
+  const results: SampleBands[] = [];
+  const failed = await forEachFile(positionals, readOptionsFrom(values), (spectra, file) => {
+    for (const s of spectra) {
+      const fit = fitSpectrumBands(s, rangeNm ? { rangeNm } : {});
+      results.push({
+        sample: s.meta.sample,
+        file,
+        ordinate: fit.ordinate,
+        bands: fit.bands,
+        baseline: fit.baseline,
+        residualRms: fit.residualRms,
+        noiseSigma: fit.noiseSigma,
+        converged: fit.converged,
+        assignments: assignBands(fit.bands, host),
+      });
+    }
+  });
+  const rows = results.flatMap((r) =>
+    r.bands.map((b, i) => ({
+      sample: r.sample,
+      file: r.file,
+      band: i + 1,
+      ...b,
+      assignment:
+        r.assignments.filter((a) => a.bandIndex === i).map((a) => `${a.ion} ${a.transition}`)[0] ??
+          "",
+    }))
+  );
+  if (values.json) console.log(JSON.stringify(results, null, 2));
+  else if (values.csv) {
+    const cols = [
+      "sample",
+      "file",
+      "band",
+      "shape",
+      "centerCm1",
+      "centerCm1Sigma",
+      "centerNm",
+      "centerNmSigma",
+      "fwhmCm1",
+      "fwhmCm1Sigma",
+      "height",
+      "heightSigma",
+      "area",
+      "areaSigma",
+      "assignment",
+    ];
+    Deno.stdout.writeSync(new TextEncoder().encode(toCsv(rows, cols)));
+  } else {
+    const shown = rows.map((r) => ({
+      sample: r.sample,
+      band: r.band,
+      "centre (nm)": `${round(r.centerNm, 1)} ± ${round(r.centerNmSigma, 1)}`,
+      "centre (cm⁻¹)": `${round(r.centerCm1, 0)} ± ${round(r.centerCm1Sigma, 0)}`,
+      "FWHM (cm⁻¹)": `${round(r.fwhmCm1, 0)} ± ${round(r.fwhmCm1Sigma, 0)}`,
+      height: `${round(r.height, 4)} ± ${round(r.heightSigma, 4)}`,
+      assignment: r.assignment,
+    }));
+    console.log(
+      toTable(shown, [
+        "sample",
+        "band",
+        "centre (nm)",
+        "centre (cm⁻¹)",
+        "FWHM (cm⁻¹)",
+        "height",
+        "assignment",
+      ]),
+    );
+  }
+  return failed > 0 ? EXIT.someFailed : EXIT.ok;
+}
