@@ -8,6 +8,10 @@ import { changeCommand } from "./change.ts";
 import { batchCommand } from "./batch.ts";
 import { reportCommand } from "./report.ts";
 import { bandsCommand } from "./bands.ts";
+import { calibrateCommand } from "./calibrate.ts";
+import { predictCommand } from "./predict.ts";
+import { aimCommand } from "./aim.ts";
+import { segregationCommand } from "./segregation.ts";
 import { EXIT, log, UsageError } from "./_shared.ts";
 
 const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
@@ -19,6 +23,10 @@ Commands:
   color     CIE colour (XYZ, xy, L*a*b*, LCh, swatches) of spectra under chosen illuminants
   change    colour change between two illuminants (ΔE00, ΔL*, ΔC*, Δh)
   bands     detect and fit absorption bands in wavenumber, with assignment hints
+  calibrate straight-line calibration of a band response against analysed standards
+  predict   dopant concentration of samples from a saved calibration
+  aim       dopant levels (and path) that put the colour on a target
+  segregation  Scheil fit of k_eff and C0 along a boule
   batch     process folders of exports into results.csv, results.json and an HTML report
   report    re-render the HTML report from a saved results.json
 
@@ -32,6 +40,10 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   batch: batchCommand,
   report: reportCommand,
   bands: bandsCommand,
+  calibrate: calibrateCommand,
+  predict: predictCommand,
+  aim: aimCommand,
+  segregation: segregationCommand,
 };
 
 /** Runs crystint with the given arguments and returns the exit code. */

@@ -1,6 +1,15 @@
 /**
- * Dopant levels and target colour.
+ * Dopant levels and target colour: calibration, prediction, Smakula–Dexter, segregation,
+ * target checks and inverse doping.
  *
  * @module
  */
 export * from "./target.ts";
+export * from "./student_t.ts";
+export * from "./linear_calibration.ts";
+export * from "./response_metric.ts";
+export * from "./standards.ts";
+export * from "./smakula_dexter.ts";
+export * from "./scheil.ts";
+export * from "./nelder_mead.ts";
+export * from "./aim_doping.ts";

@@ -1,0 +1,170 @@
+/**
+ * `crystint calibrate`: straight-line calibration of a band response against standards.
+ *
+ * @module
+ */
+import { dirname, resolve } from "node:path";
+import {
+  type CalibrationMode,
+  type CalibrationPoint,
+  fitCalibration,
+} from "../lib/dopant/linear_calibration.ts";
+import {
+  type MetricOptions,
+  type ResponseMetric,
+  spectrumResponse,
+} from "../lib/dopant/response_metric.ts";
+import { parseStandards } from "../lib/dopant/standards.ts";
+import { readSpectrumFile } from "../lib/io/read_file.ts";
+import { InputError } from "../lib/io/input_error.ts";
+import { writeTextAtomic } from "../lib/batch/atomic_write.ts";
+import {
+  EXIT,
+  log,
+  parseCommandArgs,
+  positiveNumber,
+  reportFailure,
+  round,
+  toTable,
+  UsageError,
+} from "./_shared.ts";
+
+export const CALIBRATE_HELP = `crystint calibrate — calibration line from analysed standards
+
+Usage:
+  crystint calibrate STANDARDS.csv [--metric band-area|band-height|alpha-at] [--mode ols|origin|weighted]
+                     [--band-nm 555] [--at-nm 555] [--window-nm 720-760] [--out CAL.json] [--json]
+
+STANDARDS.csv columns: sample, concentration (unit in a "unit" column or the header, e.g.
+"Cr2O3 (wt%)"), optional concentration_sigma, and either file (a spectrum, path relative to
+the table; thickness from the file or a thickness_mm column) or response (+ response_sigma).
+A response column is used directly.
+
+  --metric      band-area (default), band-height (fitted band nearest --band-nm), or alpha-at
+                (α at --at-nm above the mean α in --window-nm); all in α units (cm⁻¹)
+  --mode        ols with intercept (default), origin (through zero, Beer–Lambert), weighted
+                (1/σ², effective variance when concentrations carry uncertainties)
+  --out FILE    save the calibration (JSON) for "crystint predict" and batch runs
+
+Prints slope, intercept, slopeSigma, interceptSigma, r2, lod, loq (LOD = 3·s_y/x / slope,
+LOQ = 10·s_y/x / slope), residuals and the 95 % t factor.
+
+Example:
+  crystint calibrate standards/cr.csv --metric band-area --band-nm 555 --out cr-cal.json
+`;
+
+/** Runs the command; returns the exit code. */
+export async function calibrateCommand(args: string[]): Promise<number> {
+  const { values, positionals } = parseCommandArgs(args, {
+    metric: { type: "string" },
+    mode: { type: "string" },
+    "band-nm": { type: "string" },
+    "at-nm": { type: "string" },
+    "window-nm": { type: "string" },
+    out: { type: "string" },
+    json: { type: "boolean" },
+    help: { type: "boolean", short: "h" },
+  });
+  if (values.help) {
+    console.log(CALIBRATE_HELP);
+    return EXIT.ok;
+  }
+  if (positionals.length !== 1) throw new UsageError("Give exactly one standards table");
+  const metric = (values.metric ?? "band-area") as ResponseMetric;
+  if (!["band-area", "band-height", "alpha-at"].includes(metric)) {
+    throw new UsageError(`Unknown --metric "${metric}"`);
+  }
+  const mode = (values.mode ?? "ols") as CalibrationMode;
+  if (!["ols", "origin", "weighted"].includes(mode)) {
+    throw new UsageError(`Unknown --mode "${mode}"`);
+  }
+  const options: MetricOptions = {};
+  const band = positiveNumber(values["band-nm"], "band-nm"),
+    at = positiveNumber(values["at-nm"], "at-nm");
+  if (band) options.bandNm = band;
+  if (at) options.atNm = at;
+  if (values["window-nm"]) {
+    const m = /^(\d+(?:\.\d+)?)\s*-\s*(\d+(?:\.\d+)?)$/.exec(values["window-nm"]);
+    if (!m) throw new UsageError(`Option --window-nm needs FROM-TO, got "${values["window-nm"]}"`);
+    options.windowNm = [Number(m[1]), Number(m[2])];
+  }
+  const table = positionals[0]!;
+  let rows;
+  try {
+    rows = parseStandards(await Deno.readTextFile(table), table);
+  } catch (e) {
+    if (e instanceof InputError) throw new UsageError(e.message);
+    throw new UsageError(`Cannot read ${table}: ${(e as Error).message}`);
+  }
+  const points: CalibrationPoint[] = [];
+  let failed = 0;
+  for (const row of rows) {
+    try {
+      let y = row.response, sy = row.responseSigma;
+      if (y === undefined) {
+        const path = resolve(dirname(table), row.file!);
+        const [spectrum] = await readSpectrumFile(
+          path,
+          row.thicknessMm ? { thicknessMm: row.thicknessMm } : {},
+        );
+        const r = spectrumResponse(spectrum!, metric, options);
+        y = r.value;
+        sy = r.sigma;
+      }
+      const p: CalibrationPoint = { sample: row.sample, x: row.concentration, y };
+      if (sy !== undefined) p.sigmaY = sy;
+      if (row.concentrationSigma !== undefined) p.sigmaX = row.concentrationSigma;
+      points.push(p);
+    } catch (e) {
+      failed++;
+      reportFailure(e, `${table}:${row.line}`);
+    }
+  }
+  let cal;
+  try {
+    cal = fitCalibration(
+      points,
+      mode,
+      rows[0]?.unit ?? "",
+      rows.some((r) => r.response === undefined) ? metric : "response",
+      { ...options },
+    );
+  } catch (e) {
+    throw new UsageError((e as Error).message);
+  }
+  if (values.out) {
+    await writeTextAtomic(
+      values.out,
+      JSON.stringify({ kind: "crystint-calibration", ...cal }, null, 2) + "\n",
+    );
+  }
+  if (values.json) console.log(JSON.stringify(cal, null, 2));
+  else {
+    const keys = [
+      "slope",
+      "intercept",
+      "slopeSigma",
+      "interceptSigma",
+      "r2",
+      "syx",
+      "lod",
+      "loq",
+    ] as const;
+    console.log(
+      toTable(keys.map((k) => ({ quantity: k, value: round(cal[k], 6) })), ["quantity", "value"]),
+    );
+    console.log(
+      toTable(
+        points.map((p, i) => ({
+          standard: p.sample,
+          concentration: p.x,
+          response: round(p.y, 4),
+          residual: round(cal.residuals[i], 4),
+        })),
+        ["standard", "concentration", "response", "residual"],
+      ),
+    );
+    log(`crystint: ${cal.lodConvention}`);
+  }
+  return failed > 0 ? EXIT.someFailed : EXIT.ok;
+}

@@ -1,0 +1,95 @@
+/**
+ * Spectral responses a calibration can use, all on an α scale (cm⁻¹) so they do not depend on
+ * the slab thickness: the fitted area or height of the band nearest a given centre, or α at a
+ * wavelength above a straight baseline through a band-free window.
+ *
+ * @module
+ */
+import type { Spectrum } from "../spectrum/spectrum.ts";
+import { spectrumAbsorbance } from "../spectrum/ordinate.ts";
+import { fitBandsCm1 } from "../bands/fit_bands.ts";
+
+/** The metrics. */
+export type ResponseMetric = "band-area" | "band-height" | "alpha-at";
+
+/** Options of a metric. */
+export interface MetricOptions {
+  /** Band centre to pick, nm (band metrics; default 555). */
+  bandNm?: number;
+  /** Wavelength to read, nm (alpha-at; default 555). */
+  atNm?: number;
+  /** Baseline window, nm (alpha-at; default 720–760). */
+  windowNm?: [number, number];
+}
+
+/** A response with its standard error. */
+export interface Response {
+  value: number;
+  sigma: number;
+}
+
+/** α in cm⁻¹ of a spectrum (from T or A this needs the thickness). */
+export function alphaOf(spectrum: Spectrum): Float64Array<ArrayBuffer> {
+  if (spectrum.quantity === "alpha") return spectrum.values.slice();
+  const d = spectrum.thicknessMm;
+  if (d === undefined) {
+    throw new RangeError(
+      `Cannot compute α of "${spectrum.meta.sample}": the thickness is not known (give --thickness)`,
+    );
+  }
+  return spectrumAbsorbance(spectrum).map((a) => (a * Math.LN10) / (d / 10));
+}
+
+function interpolate(nm: Float64Array, y: Float64Array, at: number): number {
+  if (at < nm[0]! || at > nm[nm.length - 1]!) {
+    throw new RangeError(`Cannot read ${at} nm: outside the data`);
+  }
+  let j = 0;
+  while (j < nm.length - 2 && nm[j + 1]! < at) j++;
+  const f = (at - nm[j]!) / (nm[j + 1]! - nm[j]!);
+  return y[j]! * (1 - f) + y[j + 1]! * f;
+}
+
+/**
+ * The response of a spectrum for a metric.
+ *
+ * @throws {RangeError} When the thickness is unknown, no band is found, or a wavelength is outside the data.
+ */
+export function spectrumResponse(
+  spectrum: Spectrum,
+  metric: ResponseMetric,
+  options: MetricOptions = {},
+): Response {
+  const alpha = alphaOf(spectrum);
+  const nm = spectrum.wavelengthNm;
+  if (metric === "alpha-at") {
+    const at = options.atNm ?? 555;
+    const [w0, w1] = options.windowNm ?? [720, 760];
+    const inWindow = [...nm].map((v, i) => (v >= w0 && v <= w1 ? alpha[i]! : NaN)).filter(
+      Number.isFinite,
+    );
+    if (inWindow.length < 2) {
+      throw new RangeError(`Cannot take a baseline: fewer than 2 points in ${w0}–${w1} nm`);
+    }
+    const base = inWindow.reduce((a, b) => a + b, 0) / inWindow.length;
+    const sd = Math.sqrt(inWindow.reduce((s, v) => s + (v - base) ** 2, 0) / (inWindow.length - 1));
+    return {
+      value: interpolate(nm, alpha, at) - base,
+      sigma: sd * Math.sqrt(1 + 1 / inWindow.length),
+    };
+  }
+  const fit = fitBandsCm1([...nm].map((v) => 1e7 / v), alpha, {}, "alpha");
+  const want = 1e7 / (options.bandNm ?? 555);
+  const band =
+    fit.bands.slice().sort((a, b) =>
+      Math.abs(a.centerCm1 - want) - Math.abs(b.centerCm1 - want)
+    )[0];
+  if (!band || Math.abs(band.centerCm1 - want) > Math.max(1500, band.fwhmCm1)) {
+    throw new RangeError(
+      `No band found near ${options.bandNm ?? 555} nm in "${spectrum.meta.sample}"`,
+    );
+  }
+  return metric === "band-area"
+    ? { value: band.area, sigma: band.areaSigma }
+    : { value: band.height, sigma: band.heightSigma };
+}
