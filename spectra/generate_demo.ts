@@ -115,15 +115,19 @@ stones[3]!.layout = "jcamp";
 const outDir = new URL("./demo/", import.meta.url);
 await Deno.mkdir(outDir, { recursive: true });
 const fmt = (v: number, d: number) => v.toFixed(d);
-const manifest = ["sample,file,host,thickness_mm,path_mm,polarisation,target,notes,lot"];
+const manifest = [
+  "sample,file,host,thickness_mm,path_mm,polarisation,target,calibration,notes,lot",
+];
 
 /** One sample-sheet line; the thickness is left out where the export's preamble carries it. */
 function row(s: Stone, file: string, thickness: string): string {
-  const target = s.host === "corundum-cr" ? "pink-sapphire" : "";
-  const lot = s.host === "corundum-cr" ? "boule B-26-04" : "flux run F-26-11";
-  return `${s.id},${file},${
-    s.host.split("-")[0]
-  },${thickness},${s.pathMm},${s.polarisation},${target},${s.notes},${lot}`;
+  const corundum = s.host === "corundum-cr";
+  const target = corundum ? "pink-sapphire" : "";
+  const calibration = corundum ? "cr-corundum" : "";
+  const lot = corundum ? "boule B-26-04" : "flux run F-26-11";
+  const host = s.host.split("-")[0];
+  return [s.id, file, host, thickness, s.pathMm, s.polarisation, target, calibration, s.notes, lot]
+    .join(",");
 }
 
 for (const s of stones) {
@@ -249,8 +253,47 @@ illuminants: [D65, A]
 observers: ["2", "10"]
 change: { from: D65, to: A, observer: "10" }
 reflection: host
+calibrations:
+  cr-corundum: ../../reports/demo/cr-calibration.json
 targets:
   pink-sapphire: { L: 45, a: 15, b: 6, illuminant: D65, observer: "10", toleranceDE00: 3 }
 `,
 );
+// Analysed standards (invented values: Cr2O3 by an outside laboratory, with its uncertainty),
+// 2.00 mm slabs measured like the lot; the calibration the batch uses is made from them.
+const lab = new URL("./standards/", import.meta.url);
+await Deno.mkdir(lab, { recursive: true });
+const standards = [[0.05, 0.004], [0.1, 0.006], [0.2, 0.01], [0.35, 0.015], [0.5, 0.02]];
+const sheet = ["sample,Cr2O3 (wt%),concentration_sigma,file,thickness_mm"];
+for (const [i, [level, sigma]] of standards.entries()) {
+  const id = `STD-${i + 1}`;
+  const rows = grid(350, 850, 1).map((nm) =>
+    `${nm},${fmt(measuredT(nm, "corundum-cr", level! * (1 + 0.02 * gauss()), 2, 0.0015), 5)}`
+  );
+  await Deno.writeTextFile(new URL(`${id}.csv`, lab), `Wavelength (nm),T\n${rows.join("\n")}\n`);
+  sheet.push(`${id},${level},${sigma},${id}.csv,2.00`);
+}
+await Deno.writeTextFile(new URL("standards.csv", lab), sheet.join("\n") + "\n");
+
+// Unit absorption spectra for "crystint aim": α per wt% of each dopant (the Ti band is an
+// invented model of the same kind), and a measured Cr profile along boule B-26-04.
+const unit = new URL("./unit/", import.meta.url);
+await Deno.mkdir(unit, { recursive: true });
+const alphaFile = (f: (nm: number) => number) =>
+  `Wavelength (nm),alpha (cm-1)\n${
+    grid(360, 830, 2).map((nm) => `${nm},${fmt(f(nm), 5)}`).join("\n")
+  }\n`;
+await Deno.writeTextFile(
+  new URL("cr_in_corundum.csv", unit),
+  alphaFile((nm) => alphaAt(nm, "corundum-cr", 1) - 0.04 * (500 / nm) ** 4),
+);
+const tiBand = (nm: number) =>
+  8 * Math.exp(-0.5 * ((1e7 / nm - 20300) / (5000 / (2 * Math.sqrt(2 * Math.LN2)))) ** 2);
+await Deno.writeTextFile(new URL("ti_in_corundum.csv", unit), alphaFile(tiBand));
+const profile = ["position_mm,concentration,sigma"];
+for (let mm = 5; mm <= 75; mm += 7) {
+  const c = 0.3 * 0.62 * (1 - mm / 80) ** (0.62 - 1);
+  profile.push(`${mm},${fmt(c * (1 + 0.02 * gauss()), 4)},${fmt(0.02 * c, 4)}`);
+}
+await Deno.writeTextFile(new URL("boule_B-26-04_profile.csv", unit), profile.join("\n") + "\n");
 console.log(`wrote ${stones.length + 2} exports and manifest.csv to spectra/demo/`);

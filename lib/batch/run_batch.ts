@@ -12,7 +12,13 @@ import { sha256Hex, stableJson } from "./hash.ts";
 import { type ManifestRow, matchRow, readManifest } from "./manifest.ts";
 import { planInputs } from "./plan_inputs.ts";
 import { type SampleResult, type SampleSettings, sampleSettings } from "./sample_result.ts";
-import { type BatchSettings, defaultSettings, readSettingsFile } from "./settings.ts";
+import {
+  type BatchSettings,
+  defaultSettings,
+  readSettingsFile,
+  SettingsError,
+} from "./settings.ts";
+import type { Calibration } from "../dopant/linear_calibration.ts";
 import { WorkerPool } from "./pool.ts";
 import { readChartBundle } from "./chart_bundle.ts";
 import {
@@ -154,6 +160,24 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
     ? await readSettingsFile(options.settingsPath)
     : options.settings ?? defaultSettings();
   const rows: ManifestRow[] = options.manifestPath ? await readManifest(options.manifestPath) : [];
+  const calibrations: Record<string, Calibration> = {};
+  const named = {
+    ...settings.calibrations,
+    ...(settings.calibration ? { default: settings.calibration } : {}),
+  };
+  for (const [name, path] of Object.entries(named)) {
+    try {
+      const parsed = JSON.parse(await Deno.readTextFile(path));
+      if (parsed.kind !== "crystint-calibration") {
+        throw new Error("not a crystint calibration file");
+      }
+      calibrations[name] = parsed;
+    } catch (e) {
+      throw new SettingsError(
+        `Cannot read calibration "${name}" (${path}): ${(e as Error).message}`,
+      );
+    }
+  }
   const outDir = options.outDir.replace(/\/$/, "");
   const cacheDir = `${outDir}/.cache`;
   await Deno.mkdir(cacheDir, { recursive: true });
@@ -185,7 +209,7 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
       let perFile: SampleSettings;
       try {
         bytes = await Deno.readFile(file);
-        perFile = sampleSettings(settings, row);
+        perFile = sampleSettings(settings, row, calibrations);
       } catch (e) {
         outcome.error = { file, message: `${file}: ${(e as Error).message}` };
         options.onProgress?.(++done, total);

@@ -17,6 +17,12 @@ import { checkTarget, type TargetCheck } from "../dopant/target.ts";
 import type { BatchSettings, TargetSetting } from "./settings.ts";
 import { type BandFit, fitSpectrumBands } from "../bands/fit_bands.ts";
 import { assignBands, type BandAssignment } from "../bands/assign_bands.ts";
+import { type Calibration, predictConcentration } from "../dopant/linear_calibration.ts";
+import {
+  type MetricOptions,
+  type ResponseMetric,
+  spectrumResponse,
+} from "../dopant/response_metric.ts";
 import type { ManifestRow } from "./manifest.ts";
 
 /** Settings for one file after the manifest row is applied. */
@@ -37,6 +43,8 @@ export interface SampleSettings {
   sampleName?: string;
   /** Polarisation as written in the sample sheet (used when the file does not say). */
   polarisation?: string;
+  /** Calibration to estimate the dopant level with, and its name. */
+  calibration?: Calibration & { name: string };
 }
 
 /** The result for one spectrum. */
@@ -67,6 +75,17 @@ export interface SampleResult {
   /** Transmittance at the reporting path, thinned to at most 300 points, for the charts. */
   plot: { nm: number[]; t: number[] };
   /** Fitted bands of the measured absorbance (or α), with assignment hints; null if not fitted. */
+  /** Dopant level from the calibration, when one applies. */
+  dopant: {
+    calibration: string;
+    metric: string;
+    response: number;
+    concentration: number;
+    sigma: number;
+    halfWidth95: number;
+    unit: string;
+    outsideRange: boolean;
+  } | null;
   bands: {
     ordinate: BandFit["ordinate"];
     bands: BandFit["bands"];
@@ -81,6 +100,7 @@ export interface SampleResult {
 export function sampleSettings(
   settings: BatchSettings,
   row: ManifestRow | undefined,
+  calibrations: Record<string, Calibration> = {},
 ): SampleSettings {
   const read: ReadOptions = {};
   const ordinate = settings.ordinate ? ordinateFromText(settings.ordinate) : undefined;
@@ -111,6 +131,16 @@ export function sampleSettings(
     throw new RangeError(`Manifest names target "${targetName}", which the settings do not define`);
   }
   if (target) out.target = { ...target, name: targetName ?? "target" };
+  const calName = row?.calibration ?? (settings.calibration ? "default" : undefined);
+  if (calName) {
+    const cal = calibrations[calName];
+    if (!cal) {
+      throw new RangeError(
+        `Manifest names calibration "${calName}", which the settings do not define`,
+      );
+    }
+    out.calibration = { ...cal, name: calName };
+  }
   if (row?.notes) out.notes = row.notes;
   if (row?.sample) out.sampleName = row.sample;
   if (row?.polarisation) out.polarisation = row.polarisation;
@@ -216,7 +246,31 @@ function resultFor(
   } catch (e) {
     warnings.push(`band fit skipped: ${(e as Error).message}`);
   }
+  let dopant: SampleResult["dopant"] = null;
+  if (s.calibration) {
+    try {
+      const r = spectrumResponse(
+        spectrum,
+        s.calibration.metric as ResponseMetric,
+        s.calibration.metricOptions as MetricOptions,
+      );
+      const p = predictConcentration(s.calibration, r.value, r.sigma);
+      dopant = {
+        calibration: s.calibration.name,
+        metric: s.calibration.metric,
+        response: r.value,
+        concentration: p.x,
+        sigma: p.sigma,
+        halfWidth95: p.halfWidth95,
+        unit: s.calibration.unit,
+        outsideRange: p.outsideRange,
+      };
+    } catch (e) {
+      warnings.push(`dopant estimate skipped: ${(e as Error).message}`);
+    }
+  }
   return {
+    dopant,
     bands,
     sample: single && s.sampleName ? s.sampleName : spectrum.meta.sample,
     file,

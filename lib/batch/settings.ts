@@ -41,6 +41,10 @@ export interface BatchSettings {
   series: { fromMm: number; toMm: number; steps: number };
   /** Hue difference (degrees) from which a D65→A change is called marked (common practice). */
   changeHueThresholdDeg: number;
+  /** Calibration file applied to every sample unless the manifest names another. */
+  calibration?: string;
+  /** Named calibration files the manifest's `calibration` column may refer to. */
+  calibrations: Record<string, string>;
 }
 
 /** A problem with the settings file (a usage error, exit code 1). */
@@ -59,6 +63,7 @@ export function defaultSettings(): BatchSettings {
     change: { from: "D65", to: "A", observer: "10", adapt: "none" },
     reflection: "none",
     targets: {},
+    calibrations: {},
     series: { fromMm: 0.5, toMm: 12, steps: 24 },
     changeHueThresholdDeg: 20,
   };
@@ -134,6 +139,8 @@ export function resolveSettings(raw: unknown): BatchSettings {
     "targets",
     "series",
     "changeHueThresholdDeg",
+    "calibration",
+    "calibrations",
   ]);
   for (const k of Object.keys(o)) {
     if (!known.has(k)) throw new SettingsError(`Unknown setting "${k}"`);
@@ -205,6 +212,15 @@ export function resolveSettings(raw: unknown): BatchSettings {
       throw new SettingsError("Setting series.toMm must exceed series.fromMm");
     }
   }
+  if (o.calibration !== undefined) s.calibration = String(o.calibration);
+  if (o.calibrations !== undefined) {
+    if (!o.calibrations || typeof o.calibrations !== "object") {
+      throw new SettingsError("Setting calibrations must be a mapping");
+    }
+    for (const [name, path] of Object.entries(o.calibrations as Record<string, unknown>)) {
+      s.calibrations[name] = String(path);
+    }
+  }
   if (o.changeHueThresholdDeg !== undefined) {
     s.changeHueThresholdDeg = num(o.changeHueThresholdDeg, "changeHueThresholdDeg", true);
   }
@@ -232,9 +248,18 @@ export async function readSettingsFile(path: string): Promise<BatchSettings> {
   } catch (e) {
     throw new SettingsError(`Cannot parse settings file ${path}: ${(e as Error).message}`);
   }
+  let settings: BatchSettings;
   try {
-    return resolveSettings(raw);
+    settings = resolveSettings(raw);
   } catch (e) {
     throw new SettingsError(`${path}: ${(e as Error).message}`);
   }
+  // calibration paths are relative to the settings file
+  const dir = path.replace(/[^/\\]*$/, "");
+  const rel = (p: string) => (/^([a-zA-Z]:)?[\\/]/.test(p) ? p : `${dir}${p}`);
+  if (settings.calibration) settings.calibration = rel(settings.calibration);
+  for (const k of Object.keys(settings.calibrations)) {
+    settings.calibrations[k] = rel(settings.calibrations[k]!);
+  }
+  return settings;
 }

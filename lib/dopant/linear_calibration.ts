@@ -164,7 +164,8 @@ export interface Prediction {
 /**
  * Concentration from a response y0 (mean of m replicate measurements), with uncertainty.
  *
- * @param sigmaY0 The response's own standard error (e.g. from the band fit), added in quadrature.
+ * @param sigmaY0 The response's own standard error (e.g. from the band fit), added in quadrature;
+ *   a non-finite value (a fit whose covariance was singular) counts as 0.
  */
 export function predictConcentration(cal: Calibration, y0: number, sigmaY0 = 0, m = 1): Prediction {
   const b = cal.slope;
@@ -173,7 +174,8 @@ export function predictConcentration(cal: Calibration, y0: number, sigmaY0 = 0, 
   const lever = cal.mode === "origin"
     ? (x * x) / cal.points.reduce((a, p) => a + p.x * p.x, 0)
     : 1 / cal.n + (y0 - cal.meanY) ** 2 / (b * b * cal.sxx);
-  const variance = (s * s / (b * b)) * (1 / m + lever) + (sigmaY0 / b) ** 2;
+  const own = Number.isFinite(sigmaY0) ? sigmaY0 : 0;
+  const variance = (s * s / (b * b)) * (1 / m + lever) + (own / b) ** 2;
   const sigma = Math.sqrt(variance);
   return {
     x,

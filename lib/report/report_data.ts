@@ -92,6 +92,9 @@ const r = (
   d = 2,
 ): number => (typeof v === "number" && Number.isFinite(v) ? Number(v.toFixed(d)) : NaN);
 
+const precision = (v: number | null, digits: number) =>
+  typeof v === "number" && Number.isFinite(v) ? v.toPrecision(digits) : "?";
+
 /** The summary row of a sample result. */
 export function reportRow(result: SampleResult, index: number): ReportRow {
   const c = result.change;
@@ -118,7 +121,11 @@ export function reportRow(result: SampleResult, index: number): ReportRow {
         words: result.target.words,
       }
       : null,
-    dopant: null,
+    dopant: result.dopant
+      ? `${precision(result.dopant.concentration, 3)} ± ${
+        precision(result.dopant.sigma, 2)
+      } ${result.dopant.unit}${result.dopant.outsideRange ? " (outside calibration)" : ""}`
+      : null,
     warnings: result.warnings,
     notes: result.notes,
     outOfGamut: result.colour.some((row) => row.srgbOutOfGamut),

@@ -52,8 +52,11 @@ describe("straight-line calibration", () => {
     const sig = MY.map((y) => 0.02 * y + 0.1);
     const weighted = fitCalibration(points.map((p, i) => ({ ...p, sigmaY: sig[i]! })), "weighted");
     const w = sig.map((s) => 1 / (s * s));
-    const sw = w.reduce((a, b) => a + b), wx = w.reduce((s, v, i) => s + v * MX[i]!, 0) / sw, wy = w.reduce((s, v, i) => s + v * MY[i]!, 0) / sw;
-    const bw = w.reduce((s, v, i) => s + v * (MX[i]! - wx) * (MY[i]! - wy), 0) / w.reduce((s, v, i) => s + v * (MX[i]! - wx) ** 2, 0);
+    const sw = w.reduce((a, b) => a + b),
+      wx = w.reduce((s, v, i) => s + v * MX[i]!, 0) / sw,
+      wy = w.reduce((s, v, i) => s + v * MY[i]!, 0) / sw;
+    const bw = w.reduce((s, v, i) => s + v * (MX[i]! - wx) * (MY[i]! - wy), 0) /
+      w.reduce((s, v, i) => s + v * (MX[i]! - wx) ** 2, 0);
     expect(weighted.slope / bw).toBeCloseTo(1, 9);
     expect(weighted.intercept / (wy - bw * wx)).toBeCloseTo(1, 9);
   });
@@ -76,12 +79,15 @@ describe("straight-line calibration", () => {
 describe("Smakula–Dexter", () => {
   it("the constant from CODATA 2018 constants is 8.20e16 (∫α dE), 0.873e17 Gaussian, 1.288e17 Lorentzian", () => {
     // derived here: N·f = 36 ε0 m_e c/(h e) · n/(n²+2)² · ∫α dE, converted to cm units
-    const k = (36 * 8.8541878128e-12 * 9.1093837015e-31 * 299792458) / (6.62607015e-34 * 1.602176634e-19) * 1e-4;
+    const k = (36 * 8.8541878128e-12 * 9.1093837015e-31 * 299792458) /
+      (6.62607015e-34 * 1.602176634e-19) * 1e-4;
     expect(SMAKULA_K_INTEGRAL / k).toBeCloseTo(1, 12);
     expect(Number(SMAKULA_K_INTEGRAL.toPrecision(3))).toBe(8.2e16);
     const n = 1.76, field = n / (n * n + 2) ** 2;
     expect(Number((smakulaDexter(1, 1, n) / field).toPrecision(3))).toBe(8.73e16);
-    expect(Number((smakulaDexter(1, 1, n, { shape: "lorentzian" }) / field).toPrecision(3))).toBe(1.29e17);
+    expect(Number((smakulaDexter(1, 1, n, { shape: "lorentzian" }) / field).toPrecision(3))).toBe(
+      1.29e17,
+    );
   });
   it("n 1.76, W 0.5 eV, f 1e-4 gives σ_peak = α/N = 3.38e-20 cm² (calculated check)", () => {
     const nf = smakulaDexter(1, 0.5, 1.76);
@@ -92,7 +98,10 @@ describe("Smakula–Dexter", () => {
 describe("Scheil segregation fit", () => {
   it("recovers k_eff and C0 from noise-free data within 1 %", () => {
     for (const [k, c0] of [[0.18, 0.5], [1.2, 0.2], [0.6, 1.0]]) {
-      const pts = [0.05, 0.15, 0.3, 0.45, 0.6, 0.75, 0.9].map((g) => ({ fraction: g, concentration: c0! * scheilRatio(g, k!) }));
+      const pts = [0.05, 0.15, 0.3, 0.45, 0.6, 0.75, 0.9].map((g) => ({
+        fraction: g,
+        concentration: c0! * scheilRatio(g, k!),
+      }));
       const f = fitScheil(pts);
       expect(Math.abs(f.k - k!) / k!).toBeLessThan(0.01);
       expect(Math.abs(f.c0 - c0!) / c0!).toBeLessThan(0.01);
@@ -138,18 +147,31 @@ describe("target check", () => {
 describe("inverse doping (aim)", () => {
   const nm = Float64Array.from({ length: 471 }, (_, i) => 360 + i);
   const K = 2 * Math.sqrt(2 * Math.LN2);
-  const band = (c: number, f: number, h: number) => nm.map((w) => h * Math.exp(-0.5 * ((1e7 / w - c) / (f / K)) ** 2));
+  const band = (c: number, f: number, h: number) =>
+    nm.map((w) => h * Math.exp(-0.5 * ((1e7 / w - c) / (f / K)) ** 2));
   const cr = band(18000, 2800, 10).map((v, i) => v + band(24500, 3200, 13)[i]!);
   const ti = band(20300, 5000, 6);
   const fe = band(26500, 3000, 4).map((v, i) => v + band(22200, 1500, 1.5)[i]!);
-  const dopants = [{ name: "Cr", alphaPerUnit: cr }, { name: "Ti", alphaPerUnit: ti }, { name: "Fe", alphaPerUnit: fe }];
+  const dopants = [{ name: "Cr", alphaPerUnit: cr }, { name: "Ti", alphaPerUnit: ti }, {
+    name: "Fe",
+    alphaPerUnit: fe,
+  }];
 
-  function problemFor(levels: number[], path: number, free?: { minMm: number; maxMm: number }, base?: Float64Array): AimProblem {
+  function problemFor(
+    levels: number[],
+    path: number,
+    free?: { minMm: number; maxMm: number },
+    base?: Float64Array,
+  ): AimProblem {
     const p: AimProblem = {
       wavelengthNm: nm,
       dopants: dopants.slice(0, levels.length),
       path,
-      targets: [{ lab: { L: 0, a: 0, b: 0 }, illuminant: "D65", observer: "10" }, { lab: { L: 0, a: 0, b: 0 }, illuminant: "A", observer: "10" }],
+      targets: [{ lab: { L: 0, a: 0, b: 0 }, illuminant: "D65", observer: "10" }, {
+        lab: { L: 0, a: 0, b: 0 },
+        illuminant: "A",
+        observer: "10",
+      }],
     };
     if (base) p.baseAlpha = base;
     const labs = predictLab(p, levels, path);
@@ -161,10 +183,14 @@ describe("inverse doping (aim)", () => {
   for (const levels of [[0.4, 0.15], [0.25, 0.3, 0.6], [0.08, 0.02]]) {
     it(`recovers levels ${levels.join(", ")} within 2 % and ΔE00 ≤ 0.05 (D65 + A targets)`, () => {
       const r = aimDoping(problemFor(levels, 5));
-      levels.forEach((v, k) => expect(Math.abs(r.levels[dopants[k]!.name]! - v) / v).toBeLessThan(0.02));
+      levels.forEach((v, k) =>
+        expect(Math.abs(r.levels[dopants[k]!.name]! - v) / v).toBeLessThan(0.02)
+      );
       expect(Math.max(...r.dE00All)).toBeLessThanOrEqual(0.05);
       expect(r.reachable).toBe(true);
-      expect(Object.keys(r.sensitivity)).toEqual(dopants.slice(0, levels.length).map((d) => d.name));
+      expect(Object.keys(r.sensitivity)).toEqual(
+        dopants.slice(0, levels.length).map((d) => d.name),
+      );
     });
   }
 
@@ -177,7 +203,12 @@ describe("inverse doping (aim)", () => {
   });
 
   it("reports unreachable for a hue none of the dopants can produce", () => {
-    const p: AimProblem = { wavelengthNm: nm, dopants: [dopants[0]!], path: 5, targets: [{ lab: { L: 60, a: -45, b: 25 }, illuminant: "D65", observer: "10" }] };
+    const p: AimProblem = {
+      wavelengthNm: nm,
+      dopants: [dopants[0]!],
+      path: 5,
+      targets: [{ lab: { L: 60, a: -45, b: 25 }, illuminant: "D65", observer: "10" }],
+    };
     const r = aimDoping(p);
     expect(r.reachable).toBe(false);
     expect(r.message).toMatch(/unreachable/);
