@@ -67,7 +67,9 @@ export function readOrdinateHeader(cell: string): HeaderReading {
   } else if (has("reflectance", "reflection", "refl") || (t.length > 0 && only("r"))) {
     ordinate = percent ? "percent-reflectance" : "reflectance";
   } else if (
-    has("transmittance", "transmission", "trans") || (t.length > 0 && only("t", "fraction"))
+    has("transmittance", "transmission", "trans") || (t.length > 0 && only("t", "fraction")) ||
+    // "ruby-01 T": a name then a lone T (a lone trailing A is not read: "Sample A" is a name)
+    (t.length > 1 && t[t.length - 1] === "t")
   ) {
     ordinate = percent ? "percent" : "transmittance";
   } else if (percent) {

@@ -60,6 +60,11 @@ function splitRecords(lines: Line[], delimiter: TextTable["delimiter"], file: st
     return lines.map((l) => l.text.trim().split(/\s+/).map((t) => ({ text: t, no: l.no })));
   }
   return lines.map((l) => {
+    // Lines without quotes split exactly on the delimiter (fast for wide files); csv-parse
+    // handles every line that quotes a field.
+    if (!l.text.includes('"')) {
+      return l.text.split(delimiter).map((t) => ({ text: t.trim(), no: l.no }));
+    }
     try {
       const cells: string[][] = parse(l.text, {
         delimiter,
