@@ -8,7 +8,7 @@ import { axisFromText, ordinateFromText } from "../lib/io/header_units.ts";
 import type { ReadOptions } from "../lib/io/read_spectra.ts";
 import { readSpectrumFile } from "../lib/io/read_file.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
-import { getHost } from "../lib/optics/refractive_index.ts";
+import { getHost, parseSellmeier } from "../lib/optics/refractive_index.ts";
 import type { ReflectionSettings } from "../lib/optics/path_transmittance.ts";
 import { customIlluminant, getIlluminant, type Illuminant } from "../lib/cie/illuminants.ts";
 import { getObserver } from "../lib/cie/observers.ts";
@@ -23,6 +23,7 @@ export const SPECTRUM_OPTIONS = {
   reflection: { type: "string" },
   host: { type: "string" },
   n: { type: "string" },
+  sellmeier: { type: "string" },
   json: { type: "boolean" },
   csv: { type: "boolean" },
   help: { type: "boolean", short: "h" },
@@ -39,6 +40,7 @@ export const SPECTRUM_OPTIONS_HELP =
                       (remove and restore the two Fresnel surfaces using n(λ))
   --host NAME         host crystal for n(λ): corundum, yag, spinel, chrysoberyl, quartz, beryl
   --n VALUE           constant refractive index instead of a host
+  --sellmeier COEFFS  your own Sellmeier fit: B1,B2,B3:C1,C2,C3 (C in µm) or A;B…:C… (C in µm²)
   --json | --csv      machine-readable output on stdout`;
 
 interface SharedValues {
@@ -49,6 +51,7 @@ interface SharedValues {
   reflection?: string | undefined;
   host?: string | undefined;
   n?: string | undefined;
+  sellmeier?: string | undefined;
 }
 
 /** Reading options from the shared flags. */
@@ -90,8 +93,18 @@ export function reflectionFrom(values: SharedValues): ReflectionSettings {
   }
   const n = positiveNumber(values.n, "n");
   if (n !== undefined) settings.n = n;
-  if (mode === "host" && settings.host === undefined && settings.n === undefined) {
-    throw new UsageError("--reflection host needs --host NAME or --n VALUE");
+  if (values.sellmeier !== undefined) {
+    try {
+      settings.dispersion = parseSellmeier(values.sellmeier);
+    } catch (e) {
+      throw new UsageError((e as Error).message);
+    }
+  }
+  if (
+    mode === "host" && settings.host === undefined && settings.n === undefined &&
+    !settings.dispersion
+  ) {
+    throw new UsageError("--reflection host needs --host NAME, --n VALUE or --sellmeier COEFFS");
   }
   return settings;
 }

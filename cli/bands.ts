@@ -5,7 +5,12 @@
  */
 import { type BandFit, fitSpectrumBands } from "../lib/bands/fit_bands.ts";
 import { assignBands, type BandAssignment } from "../lib/bands/assign_bands.ts";
-import { getHost } from "../lib/optics/refractive_index.ts";
+import { getHost, hostIndex } from "../lib/optics/refractive_index.ts";
+import { densityFromBand } from "../lib/dopant/smakula_dexter.ts";
+import { alphaOf } from "../lib/dopant/response_metric.ts";
+import { figureOfMerit } from "../lib/bands/figure_of_merit.ts";
+import { taucGap, urbachEnergy } from "../lib/bands/absorption_edge.ts";
+import { nmToEv } from "../lib/spectrum/axis.ts";
 import { EXIT, parseCommandArgs, round, toCsv, toTable, UsageError } from "./_shared.ts";
 import { forEachFile, readOptionsFrom } from "./_spectrum_options.ts";
 
@@ -20,6 +25,13 @@ Options:
   --ordinate KIND     transmittance | percent | absorbance | alpha (default: from the file)
   --axis UNIT         nm | um | cm-1 | ev (default: from the file)
   --thickness MM      measured thickness, mm (only used for α files)
+  --oscillator-strength F   add a Smakula–Dexter density estimate N per band (cm⁻³) for the
+                      oscillator strength F you supply (needs α: an α file or --thickness, and
+                      --host or --n for the index); an order-of-magnitude estimate
+  --n VALUE           refractive index for the estimate when no host is named
+  --merit PUMP,RES    figure of merit α(PUMP nm)/α(RES nm), e.g. 490,820 for Ti:sapphire
+                      (common practice)
+  --edge direct|indirect   Tauc gap and Urbach energy of the absorption edge (needs α)
   --json | --csv      machine-readable output on stdout
   -h, --help          show this help
 
@@ -39,6 +51,10 @@ export async function bandsCommand(args: string[]): Promise<number> {
     thickness: { type: "string" },
     host: { type: "string" },
     "range-nm": { type: "string" },
+    "oscillator-strength": { type: "string" },
+    n: { type: "string" },
+    merit: { type: "string" },
+    edge: { type: "string" },
     json: { type: "boolean" },
     csv: { type: "boolean" },
     help: { type: "boolean", short: "h" },
@@ -76,12 +92,78 @@ export async function bandsCommand(args: string[]): Promise<number> {
     noiseSigma: number;
     converged: boolean;
     assignments: BandAssignment[];
+    densityEstimates?: {
+      centerNm: number;
+      densityPerCm3: number;
+      oscillatorStrength: number;
+      n: number;
+    }[];
+    figureOfMerit?: number;
+    edge?: {
+      gapEv: number;
+      exponent: string;
+      fromEv: number;
+      toEv: number;
+      urbachEv: number | null;
+    };
   }
   const results: SampleBands[] = [];
+  const f = values["oscillator-strength"] === undefined
+    ? undefined
+    : Number(values["oscillator-strength"]);
+  if (f !== undefined && !(f > 0)) {
+    throw new UsageError("Option --oscillator-strength needs a positive number");
+  }
+  const nConst = values.n === undefined ? undefined : Number(values.n);
+  if (f !== undefined && !host && !(nConst! > 0)) {
+    throw new UsageError("--oscillator-strength needs --host NAME or --n VALUE");
+  }
+  let merit: [number, number] | undefined;
+  if (values.merit !== undefined) {
+    const m = /^(\d+(?:\.\d+)?),(\d+(?:\.\d+)?)$/.exec(values.merit);
+    if (!m) throw new UsageError(`Option --merit needs PUMP,RES in nm, got "${values.merit}"`);
+    merit = [Number(m[1]), Number(m[2])];
+  }
+  if (values.edge !== undefined && !["direct", "indirect"].includes(values.edge)) {
+    throw new UsageError(`Option --edge takes direct or indirect, got "${values.edge}"`);
+  }
   const failed = await forEachFile(positionals, readOptionsFrom(values), (spectra, file) => {
     for (const s of spectra) {
       const fit = fitSpectrumBands(s, rangeNm ? { rangeNm } : {});
+      const extra: Partial<SampleBands> = {};
+      if (f !== undefined) {
+        const alphaFit = s.quantity === "alpha" ? fit : fitSpectrumBands(
+          { ...s, quantity: "alpha", values: alphaOf(s) },
+          rangeNm ? { rangeNm } : {},
+        );
+        extra.densityEstimates = alphaFit.bands.map((b) => {
+          const n = host ? hostIndex(getHost(host), b.centerNm).n : nConst!;
+          return {
+            centerNm: b.centerNm,
+            densityPerCm3: densityFromBand(b.height, b.fwhmCm1, n, f),
+            oscillatorStrength: f,
+            n,
+          };
+        });
+      }
+      if (merit) extra.figureOfMerit = figureOfMerit(s, merit[0], merit[1]);
+      if (values.edge) {
+        const alpha = alphaOf(s);
+        const ev = [...s.wavelengthNm].map(nmToEv);
+        const t = taucGap(ev, alpha, values.edge as "direct" | "indirect");
+        if (t) {
+          const u = urbachEnergy(ev, alpha, t.gapEv);
+          extra.edge = {
+            gapEv: t.gapEv,
+            exponent: t.exponent,
+            fromEv: t.region.fromEv,
+            toEv: t.region.toEv,
+            urbachEv: u?.urbachEv ?? null,
+          };
+        }
+      }
       results.push({
+        ...extra,
         sample: s.meta.sample,
         file,
         ordinate: fit.ordinate,

@@ -12,6 +12,7 @@ import { calibrateCommand } from "./calibrate.ts";
 import { predictCommand } from "./predict.ts";
 import { aimCommand } from "./aim.ts";
 import { segregationCommand } from "./segregation.ts";
+import { metamerismCommand, pleochroismCommand } from "./pleochroism.ts";
 import { EXIT, log, UsageError } from "./_shared.ts";
 
 const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
@@ -22,6 +23,8 @@ Usage:
 Commands:
   color     CIE colour (XYZ, xy, L*a*b*, LCh, swatches) of spectra under chosen illuminants
   change    colour change between two illuminants (ΔE00, ΔL*, ΔC*, Δh)
+  pleochroism  colours of an o/e pair, unpolarised colour, ΔE00 between o and e
+  metamerism   CIE special metamerism index of two specimens for a change of illuminant
   bands     detect and fit absorption bands in wavenumber, with assignment hints
   calibrate straight-line calibration of a band response against analysed standards
   predict   dopant concentration of samples from a saved calibration
@@ -44,6 +47,8 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   predict: predictCommand,
   aim: aimCommand,
   segregation: segregationCommand,
+  pleochroism: pleochroismCommand,
+  metamerism: metamerismCommand,
 };
 
 /** Runs crystint with the given arguments and returns the exit code. */

@@ -9,6 +9,7 @@ import type { ReadOptions } from "../io/read_spectra.ts";
 import { axisFromText, ordinateFromText } from "../io/header_units.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { type ReflectionSettings, transmittanceForPath } from "../optics/path_transmittance.ts";
+import { parseSellmeier } from "../optics/refractive_index.ts";
 import { type ColourRow, spectrumColour } from "../cie/spectrum_colour.ts";
 import { type ColourChange, colourChange } from "../cie/colour_change.ts";
 import { type ThicknessSeries, thicknessSeries } from "../cie/thickness_series.ts";
@@ -38,6 +39,7 @@ export interface SampleSettings {
   series: BatchSettings["series"];
   target?: TargetSetting & { name: string };
   changeHueThresholdDeg: number;
+  changeMinChroma: number;
   notes?: string;
   extra: Record<string, string>;
   sampleName?: string;
@@ -112,6 +114,7 @@ export function sampleSettings(
   const reflection: ReflectionSettings = { reflection: settings.reflection };
   if (host !== undefined) reflection.host = host;
   if (settings.n !== undefined) reflection.n = settings.n;
+  if (settings.sellmeier !== undefined) reflection.dispersion = parseSellmeier(settings.sellmeier);
   const out: SampleSettings = {
     read,
     reflection,
@@ -120,6 +123,7 @@ export function sampleSettings(
     change: settings.change,
     series: settings.series,
     changeHueThresholdDeg: settings.changeHueThresholdDeg,
+    changeMinChroma: settings.changeMinChroma,
     extra: row?.extra ?? {},
   };
   const pathMm = row?.pathMm ?? settings.pathMm;
@@ -289,7 +293,9 @@ function resultFor(
       ...change,
       swatchFrom: swatch(s.change.from),
       swatchTo: swatch(s.change.to),
-      marked: Math.abs(change.dh) >= s.changeHueThresholdDeg,
+      // a hue angle means little for a nearly grey colour, so both chromas must reach the floor
+      marked: Math.abs(change.dh) >= s.changeHueThresholdDeg &&
+        Math.min(change.chromaFrom, change.chromaTo) >= s.changeMinChroma,
     },
     series,
     target,

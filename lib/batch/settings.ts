@@ -6,7 +6,7 @@
 import { parse as parseYaml } from "yaml";
 import { getIlluminant } from "../cie/illuminants.ts";
 import { getObserver } from "../cie/observers.ts";
-import { getHost } from "../optics/refractive_index.ts";
+import { getHost, parseSellmeier } from "../optics/refractive_index.ts";
 import { axisFromText, ordinateFromText } from "../io/header_units.ts";
 
 /** A target colour with its tolerance. */
@@ -32,6 +32,8 @@ export interface BatchSettings {
   reflection: "none" | "host";
   host?: string;
   n?: number;
+  /** The user's own Sellmeier coefficients, as for `--sellmeier` (overrides the host's). */
+  sellmeier?: string;
   ordinate?: string;
   axis?: string;
   /** The target every sample is checked against, unless the manifest names another. */
@@ -41,6 +43,8 @@ export interface BatchSettings {
   series: { fromMm: number; toMm: number; steps: number };
   /** Hue difference (degrees) from which a D65→A change is called marked (common practice). */
   changeHueThresholdDeg: number;
+  /** Smallest C*ab (under both lights) for a change to be called marked (common practice). */
+  changeMinChroma: number;
   /** Calibration file applied to every sample unless the manifest names another. */
   calibration?: string;
   /** Named calibration files the manifest's `calibration` column may refer to. */
@@ -66,6 +70,7 @@ export function defaultSettings(): BatchSettings {
     calibrations: {},
     series: { fromMm: 0.5, toMm: 12, steps: 24 },
     changeHueThresholdDeg: 20,
+    changeMinChroma: 5,
   };
 }
 
@@ -141,6 +146,8 @@ export function resolveSettings(raw: unknown): BatchSettings {
     "changeHueThresholdDeg",
     "calibration",
     "calibrations",
+    "changeMinChroma",
+    "sellmeier",
   ]);
   for (const k of Object.keys(o)) {
     if (!known.has(k)) throw new SettingsError(`Unknown setting "${k}"`);
@@ -180,6 +187,10 @@ export function resolveSettings(raw: unknown): BatchSettings {
     check(() => getHost(s.host!), "host");
   }
   if (o.n !== undefined) s.n = num(o.n, "n", true);
+  if (o.sellmeier !== undefined) {
+    s.sellmeier = String(o.sellmeier);
+    check(() => parseSellmeier(s.sellmeier!), "sellmeier");
+  }
   if (o.ordinate !== undefined) {
     s.ordinate = String(o.ordinate);
     if (!ordinateFromText(s.ordinate)) {
@@ -211,6 +222,9 @@ export function resolveSettings(raw: unknown): BatchSettings {
     if (s.series.toMm <= s.series.fromMm) {
       throw new SettingsError("Setting series.toMm must exceed series.fromMm");
     }
+  }
+  if (o.changeMinChroma !== undefined) {
+    s.changeMinChroma = num(o.changeMinChroma, "changeMinChroma");
   }
   if (o.calibration !== undefined) s.calibration = String(o.calibration);
   if (o.calibrations !== undefined) {

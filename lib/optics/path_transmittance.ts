@@ -8,7 +8,13 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { spectrumAbsorbance, transmittanceAtPath } from "../spectrum/ordinate.ts";
-import { getHost, type HostEntry, hostIndex } from "./refractive_index.ts";
+import {
+  type Dispersion,
+  dispersionIndex,
+  getHost,
+  type HostEntry,
+  hostIndex,
+} from "./refractive_index.ts";
 import { fresnelReflectance, internalFromSlab, slabTransmittance } from "./slab.ts";
 
 /** How surface reflections are treated. */
@@ -21,6 +27,8 @@ export interface ReflectionSettings {
   axis?: string;
   /** A constant refractive index overriding the host's dispersion. */
   n?: number;
+  /** The user's own dispersion formula (e.g. Sellmeier coefficients), overriding the host's. */
+  dispersion?: Dispersion;
   /** Keep the two surfaces in the output (a slab as measured); default true. */
   surfaces?: boolean;
 }
@@ -35,6 +43,13 @@ export function surfaceReflectance(
   if (settings.n !== undefined) {
     return {
       r: new Float64Array(wavelengthNm.length).fill(fresnelReflectance(settings.n)),
+      warnings,
+    };
+  }
+  if (settings.dispersion) {
+    const d = settings.dispersion;
+    return {
+      r: Float64Array.from(wavelengthNm, (nm) => fresnelReflectance(dispersionIndex(d, nm))),
       warnings,
     };
   }

@@ -23,6 +23,36 @@ export function dispersionIndex(d: Dispersion, wavelengthNm: number): number {
 }
 
 /**
+ * Reads Sellmeier coefficients written as `B1,B2,…:C1,C2,…` (form n² − 1 = Σ Bλ²/(λ² − C²),
+ * C in µm), or `A;B1,B2,…:C1,C2,…` (form n² = A + Σ Bλ²/(λ² − C), C in µm²).
+ *
+ * @throws {SyntaxError} For text that is not of either form.
+ */
+export function parseSellmeier(text: string): Dispersion {
+  const m = /^\s*(?:([-+\d.eE]+)\s*;)?\s*([-+\d.eE,\s]+):([-+\d.eE,\s]+)$/.exec(text);
+  const nums = (s: string) => s.split(",").map((v) => Number(v.trim()));
+  if (!m) {
+    throw new SyntaxError(
+      `Cannot read Sellmeier coefficients "${text}": use B1,B2,B3:C1,C2,C3 or A;B…:C…`,
+    );
+  }
+  const b = nums(m[2]!), c = nums(m[3]!);
+  if (b.length !== c.length || [...b, ...c].some((v) => !Number.isFinite(v))) {
+    throw new SyntaxError(
+      `Cannot read Sellmeier coefficients "${text}": as many B as C, all numbers`,
+    );
+  }
+  if (m[1] !== undefined) {
+    const a = Number(m[1]);
+    if (!Number.isFinite(a)) {
+      throw new SyntaxError(`Cannot read Sellmeier coefficients "${text}": A is not a number`);
+    }
+    return { form: "sellmeier-a", a, b, c };
+  }
+  return { form: "sellmeier-c", b, c };
+}
+
+/**
  * Looks a host up by name or alias (case-insensitive).
  *
  * @throws {RangeError} For an unknown host, listing the known ones.

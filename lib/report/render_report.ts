@@ -21,7 +21,7 @@ const METHODS = [
   "Path-length rescaling by Beer–Lambert on the measured absorbance, or with both Fresnel surfaces removed and restored using the host's refractive index (incoherent slab formula).",
   "Swatches: Bradford adaptation to D65, sRGB (IEC 61966-2-1); colours outside sRGB are marked ◆ and shown with reduced CIELAB chroma at constant L* and hue.",
   "Bands: sum of Gaussians in wavenumber (Lorentzian below 150 cm⁻¹ FWHM) plus a baseline with a λ⁻⁴ scatter term, bounded Levenberg–Marquardt, 1σ standard errors from the covariance; assignments are hints from a catalogue whose figures are marked published or from memory.",
-  "A marked colour change (tag) means |Δh| at or above the threshold in the settings — a common-practice threshold, not a standard.",
+  "A marked colour change (tag) means |Δh| at or above the threshold in the settings with C*ab above a floor under both lights — common-practice thresholds, not a standard.",
 ];
 
 function lch([L, C, h]: [number, number, number]): string {

@@ -21,7 +21,7 @@ table.summary th[aria-sort="descending"]::after { content: " ▼"; }
 table.summary td { padding: 5px 8px; border-bottom: 1px solid #ebe5d8; vertical-align: middle; }
 table.summary tbody tr:hover { background: #f1ece1; }
 table.summary tbody tr.open { background: #e8f0ef; }
-td.num { text-align: right; }
+td.num { text-align: right; white-space: nowrap; }
 .swatches { display: inline-flex; border: 1px solid #0002; border-radius: 3px; overflow: hidden; }
 .swatches span { display: inline-block; width: 26px; height: 18px; }
 .big .swatches span { width: 90px; height: 60px; }

@@ -67,3 +67,40 @@ describe("crystint change (machine contract)", () => {
     expect(JSON.parse(r.stdout)[0].pathMm).toBe(5);
   });
 });
+
+describe("crystint pleochroism and metamerism", () => {
+  it("pleochroism of two files: o, e, unpolarised colours and dE00oe; missing thickness is a usage error", async () => {
+    const o = fixture("colour/cr_corundum_1nm.csv"), e = fixture("colour/colour_change_5nm.csv");
+    const r = await run("pleochroism", o, e, "--thickness", "2", "--path", "4", "--json");
+    expect(r.code).toBe(0);
+    const rows = JSON.parse(r.stdout);
+    expect(rows.length).toBe(2);
+    for (const k of ["Lo", "ao", "bo", "Le", "ae", "be", "Lu", "au", "bu", "dE00oe"]) {
+      expect(rows[0]).toHaveProperty(k);
+    }
+    expect(rows[0].dE00oe).toBeGreaterThan(1);
+    expect((await run("pleochroism", o, e, "--path", "4")).code).toBe(1);
+  });
+  it("metamerism index is 0 for a specimen against itself", async () => {
+    const a = fixture("colour/ti_blue_2nm.csv");
+    const r = await run("metamerism", a, a, "--test", "A,F11", "--json");
+    expect(r.code).toBe(0);
+    const rows = JSON.parse(r.stdout);
+    expect(rows.map((x: { test: string }) => x.test)).toEqual(["A", "F11"]);
+    expect(rows[0].index00).toBe(0);
+  });
+  it("--sellmeier gives your own dispersion for the surfaces", async () => {
+    const r = await run(
+      "color",
+      fixture("colour/ramp_2nm.csv"),
+      "--thickness",
+      "2",
+      "--path",
+      "4",
+      "--sellmeier",
+      "1.43,0.65,5.34:0.0727,0.119,18.03",
+      "--json",
+    );
+    expect(r.code).toBe(0);
+  });
+});

@@ -88,6 +88,15 @@ describe("transmittanceForPath()", () => {
   });
 });
 
+describe("your own dispersion", () => {
+  it("parseSellmeier reads B:C coefficients and reproduces the corundum o index", async () => {
+    const { parseSellmeier, dispersionIndex } = await import("../../lib/optics/mod.ts");
+    const d = parseSellmeier("1.4313493,0.65054713,5.3414021:0.0726631,0.1193242,18.028251");
+    expect(dispersionIndex(d, 589.3)).toBeCloseTo(1.76808, 4);
+    expect(() => parseSellmeier("1,2:3")).toThrow(SyntaxError);
+  });
+});
+
 describe("host catalogue", () => {
   // n at 589.3 nm computed from each paper's published coefficients (values as tabulated in
   // the check list of the project's reference notes), and a second wavelength.
@@ -103,6 +112,16 @@ describe("host catalogue", () => {
     ["chrysoberyl", "c", 589.3, 1.74078],
     ["quartz", "o", 589.3, 1.54421],
     ["quartz", "e", 589.3, 1.55331],
+    // second wavelength, 1064 nm: each paper's coefficients evaluated independently of this code
+    // (Python, see the notes of the issue); quartz 1.5341 / 1.5428 are also the handbook values
+    // usually quoted for 1064 nm (from memory)
+    ["yag", "n", 1064, 1.81465],
+    ["spinel", "n", 1064, 1.70192],
+    ["chrysoberyl", "a", 1064, 1.7297],
+    ["chrysoberyl", "b", 1064, 1.73504],
+    ["chrysoberyl", "c", 1064, 1.72776],
+    ["quartz", "o", 1064, 1.5341],
+    ["quartz", "e", 1064, 1.54283],
   ];
   for (const [host, axis, nm, n] of cases) {
     it(`${host} ${axis} at ${nm} nm is ${n}`, () => {
