@@ -237,13 +237,13 @@ await Deno.writeFile(
   ]),
 );
 manifest.push(
-  "TCW-R99,TCW-R99_damaged.csv,corundum,2,6,o,pink-sapphire,upload was interrupted,boule B-26-04",
+  "TCW-R99,TCW-R99_damaged.csv,corundum,2,6,o,pink-sapphire,cr-corundum,upload was interrupted,boule B-26-04",
 );
 manifest.push(
-  "TCW-R98,TCW-R98_photo.csv,corundum,2,6,o,pink-sapphire,wrong file attached,boule B-26-04",
+  "TCW-R98,TCW-R98_photo.csv,corundum,2,6,o,pink-sapphire,cr-corundum,wrong file attached,boule B-26-04",
 );
 manifest.push(
-  "TCW-R50,TCW-R50.csv,corundum,2.0,6,o,pink-sapphire,stone listed but its export is missing,boule B-26-04",
+  "TCW-R50,TCW-R50.csv,corundum,2.0,6,o,pink-sapphire,cr-corundum,stone listed but its export is missing,boule B-26-04",
 );
 await Deno.writeTextFile(new URL("manifest.csv", outDir), manifest.join("\n") + "\n");
 await Deno.writeTextFile(

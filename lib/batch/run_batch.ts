@@ -265,6 +265,7 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
     jsonPath = `${outDir}/results.json`,
     htmlPath = `${outDir}/index.html`;
   const reportRows: ReportRow[] = [];
+  const placed: Record<string, { sample: string; x: number; y: number }[]> = {};
   const details: Record<number, ReportDetail> = {};
   const detailLimit = options.detailLimit ?? 2000;
   let samples = 0;
@@ -280,6 +281,13 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
         first = false;
         const index = samples++;
         reportRows.push(reportRow(result, index));
+        if (result.dopant && (placed[result.dopant.calibration] ??= []).length < 5000) {
+          placed[result.dopant.calibration]!.push({
+            sample: result.sample,
+            x: result.dopant.concentration,
+            y: result.dopant.response,
+          });
+        }
         if (index < detailLimit) details[index] = reportDetail(result);
       }
     }
@@ -323,6 +331,17 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
     errors: errors.map(({ file, message }) => ({ file, message })),
     manifestNotes,
     locus: locusForReport(),
+    calibrations: Object.entries(calibrations).map(([name, c]) => ({
+      name,
+      unit: c.unit,
+      metric: c.metric,
+      slope: c.slope,
+      intercept: c.intercept,
+      r2: c.r2,
+      lod: c.lod,
+      standards: c.points.map((p) => ({ sample: p.sample ?? "", x: p.x, y: p.y })),
+      samples: placed[name] ?? [],
+    })),
   }, await readChartBundle());
   await writeTextAtomic(htmlPath, html);
   return {

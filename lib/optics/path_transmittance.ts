@@ -54,7 +54,9 @@ export function surfaceReflectance(
     };
   }
   if (settings.host === undefined) {
-    throw new RangeError("Cannot compute surface reflections: give --host NAME or --n VALUE");
+    throw new RangeError(
+      "Cannot compute surface reflections: no host or refractive index given (--host or --n; in a batch, host in the settings or the sample sheet)",
+    );
   }
   const host = typeof settings.host === "string" ? getHost(settings.host) : settings.host;
   const axes = Object.keys(host.axes);

@@ -70,7 +70,8 @@ export function renderReport(input: ReportInput, chartJs: string): string {
   );
   const passed = input.rows.filter((r) => r.target?.pass).length;
   const targeted = input.rows.filter((r) => r.target).length;
-  const data = { rows: input.rows, details: input.details, locus: input.locus };
+  const calibrations = input.calibrations ?? [];
+  const data = { rows: input.rows, details: input.details, locus: input.locus, calibrations };
   const limited = input.rows.length > Object.keys(input.details).length;
   return `<!doctype html>
 <html lang="en">
@@ -143,6 +144,21 @@ ${
 </div>
 </section>
 
+${
+    calibrations.length
+      ? `<h2>Calibration</h2><div class="grid2">${
+        calibrations.map((c, i) =>
+          `<div class="card"><h3>${e(c.name)}: ${e(c.metric)} vs concentration (${
+            e(c.unit)
+          })</h3>` +
+          `<div class="chart"><canvas id="chart-cal-${i}"></canvas></div>` +
+          `<p>slope ${c.slope.toPrecision(4)}, intercept ${c.intercept.toPrecision(3)}, r² ${
+            c.r2.toFixed(4)
+          }, LOD ${c.lod.toPrecision(2)} ${e(c.unit)}</p></div>`
+        ).join("")
+      }</div>`
+      : ""
+  }
 ${
     input.errors.length
       ? `<h2>Files not processed</h2><div class="card"><ul class="errors">${

@@ -85,6 +85,21 @@ export interface ReportInput {
   errors: { file: string; message: string }[];
   manifestNotes: string[];
   locus: { nm: number[]; x: number[]; y: number[] };
+  /** Calibrations used, with their standards and the samples placed on them. */
+  calibrations?: ReportCalibration[];
+}
+
+/** A calibration line for the report's calibration plot. */
+export interface ReportCalibration {
+  name: string;
+  unit: string;
+  metric: string;
+  slope: number;
+  intercept: number;
+  r2: number;
+  lod: number;
+  standards: { sample: string; x: number; y: number }[];
+  samples: { sample: string; x: number; y: number }[];
 }
 
 const r = (

@@ -106,6 +106,21 @@ export const REPORT_SCRIPT = `
   if (document.getElementById("xy-all")) xyChart(document.getElementById("xy-all"), allXy);
   if (document.getElementById("ab-all")) abChart(document.getElementById("ab-all"), allPairs, first ? first.from : "D65", first ? first.to : "A");
 
+  // Calibration plots: standards, the fitted line, and the samples placed on it.
+  (data.calibrations || []).forEach(function (c, i) {
+    var canvas = document.getElementById("chart-cal-" + i);
+    if (!canvas) return;
+    var xs = c.standards.map(function (p) { return p.x; }).concat(c.samples.map(function (p) { return p.x; }));
+    var lo = Math.min.apply(null, xs.concat([0])), hi = Math.max.apply(null, xs);
+    new Chart(canvas, { type: "scatter", data: { datasets: [
+      { label: "standards", data: c.standards.map(function (p) { return { x: p.x, y: p.y }; }), backgroundColor: INK, pointRadius: 5 },
+      { label: "fit", data: [{ x: lo, y: c.intercept + c.slope * lo }, { x: hi, y: c.intercept + c.slope * hi }],
+        showLine: true, pointRadius: 0, borderColor: DAY },
+      { label: "samples", data: c.samples.map(function (p) { return { x: p.x, y: p.y }; }), backgroundColor: LAMP, pointRadius: 3.5 }
+    ] }, options: { scales: { x: { title: { display: true, text: "concentration (" + c.unit + ")" } },
+      y: { title: { display: true, text: c.metric } } }, plugins: { legend: { position: "bottom" } } } });
+  });
+
   // Detail on demand.
   var charts = [];
   function text(id, value) { var el = document.getElementById(id); if (el) el.textContent = value; }
