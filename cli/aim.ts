@@ -7,7 +7,7 @@ import { readSpectrumFile } from "../lib/io/read_file.ts";
 import { alphaOf } from "../lib/dopant/response_metric.ts";
 import { aimDoping, type AimProblem, type AimTarget } from "../lib/dopant/aim_doping.ts";
 import { surfaceReflectance } from "../lib/optics/path_transmittance.ts";
-import type { Spectrum } from "../lib/spectrum/spectrum.ts";
+import { resampleLinear } from "../lib/spectrum/linear_resample.ts";
 import { EXIT, parseCommandArgs, positiveNumber, round, toTable, UsageError } from "./_shared.ts";
 import { checkObservers, reflectionFrom, resolveIlluminants } from "./_spectrum_options.ts";
 
@@ -38,19 +38,6 @@ function parseLab(text: string, what: string) {
     throw new UsageError(`${what} needs L,a,b, got "${text}"`);
   }
   return { L: parts[0]!, a: parts[1]!, b: parts[2]! };
-}
-
-function onGrid(grid: Float64Array, s: Spectrum, values: Float64Array): Float64Array {
-  const nm = s.wavelengthNm;
-  return grid.map((w) => {
-    if (w < nm[0]! || w > nm[nm.length - 1]!) {
-      return w < nm[0]! ? values[0]! : values[values.length - 1]!;
-    }
-    let j = 0;
-    while (j < nm.length - 2 && nm[j + 1]! < w) j++;
-    const f = (w - nm[j]!) / (nm[j + 1]! - nm[j]!);
-    return values[j]! * (1 - f) + values[j + 1]! * f;
-  });
 }
 
 /** Runs the command; returns the exit code. */
@@ -107,13 +94,16 @@ export async function aimCommand(args: string[]): Promise<number> {
   const grid = dopants[0]!.s.wavelengthNm;
   const problem: AimProblem = {
     wavelengthNm: grid,
-    dopants: dopants.map((d) => ({ name: d.name, alphaPerUnit: onGrid(grid, d.s, d.alpha) })),
+    dopants: dopants.map((d) => ({
+      name: d.name,
+      alphaPerUnit: resampleLinear(d.s.wavelengthNm, d.alpha, grid),
+    })),
     path: 0,
     targets,
   };
   if (values.base) {
     const b = await read(values.base);
-    problem.baseAlpha = onGrid(grid, b.s, b.alpha);
+    problem.baseAlpha = resampleLinear(b.s.wavelengthNm, b.alpha, grid);
   }
   const fixed = positiveNumber(values.path, "path");
   if (values["path-range"]) {

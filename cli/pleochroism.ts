@@ -5,6 +5,7 @@
  */
 import { readSpectrumFile } from "../lib/io/read_file.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
+import { resampleLinear } from "../lib/spectrum/linear_resample.ts";
 import {
   transmittanceForPath,
   unpolarisedTransmittance,
@@ -61,19 +62,6 @@ function atPath(
   }
 }
 
-/** Values of spectrum b on the grid of a (linear; ends held). */
-function onGrid(a: Spectrum, b: Spectrum, tb: Float64Array): Float64Array<ArrayBuffer> {
-  const x = b.wavelengthNm;
-  return a.wavelengthNm.map((w) => {
-    if (w <= x[0]!) return tb[0]!;
-    if (w >= x[x.length - 1]!) return tb[tb.length - 1]!;
-    let j = 0;
-    while (j < x.length - 2 && x[j + 1]! < w) j++;
-    const f = (w - x[j]!) / (x[j + 1]! - x[j]!);
-    return tb[j]! * (1 - f) + tb[j + 1]! * f;
-  });
-}
-
 async function pair(
   positionals: string[],
   read: ReturnType<typeof readOptionsFrom>,
@@ -110,7 +98,7 @@ export async function pleochroismCommand(args: string[]): Promise<number> {
   const reflection = reflectionFrom(values);
   const pathMm = positiveNumber(values.path, "path");
   const tO = atPath(o, pathMm, reflection);
-  const tE = onGrid(o, e, atPath(e, pathMm, reflection));
+  const tE = resampleLinear(e.wavelengthNm, atPath(e, pathMm, reflection), o.wavelengthNm);
   const tU = unpolarisedTransmittance(tO, tE);
   const illuminants = await resolveIlluminants(listOption(values.illuminant, ["D65", "A"]));
   const observers = checkObservers(listOption(values.observer, ["10"]));
@@ -205,7 +193,7 @@ export async function metamerismCommand(args: string[]): Promise<number> {
   const reflection = reflectionFrom(values);
   const pathMm = positiveNumber(values.path, "path");
   const tA = atPath(a, pathMm, reflection);
-  const tB = onGrid(a, b, atPath(b, pathMm, reflection));
+  const tB = resampleLinear(b.wavelengthNm, atPath(b, pathMm, reflection), a.wavelengthNm);
   const [reference] = await resolveIlluminants([values.reference ?? "D65"]);
   const tests = listOption(values.test, ["A"]);
   await resolveIlluminants(tests);

@@ -8,17 +8,7 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { spectrumAbsorbance } from "../spectrum/ordinate.ts";
-
-/** Value of a spectrum's absorbance (or α) at a wavelength, by linear interpolation. */
-function valueAt(nm: Float64Array, y: Float64Array, at: number): number {
-  if (at < nm[0]! || at > nm[nm.length - 1]!) {
-    throw new RangeError(`Cannot read ${at} nm: outside the data`);
-  }
-  let j = 0;
-  while (j < nm.length - 2 && nm[j + 1]! < at) j++;
-  const f = (at - nm[j]!) / (nm[j + 1]! - nm[j]!);
-  return y[j]! * (1 - f) + y[j + 1]! * f;
-}
+import { valueAt } from "../spectrum/linear_resample.ts";
 
 /** α(pump) / α(residual) from a spectrum (absorbance or α; the ratio needs no thickness). */
 export function figureOfMerit(spectrum: Spectrum, pumpNm = 490, residualNm = 820): number {

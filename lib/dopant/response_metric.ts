@@ -8,6 +8,7 @@
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { spectrumAbsorbance } from "../spectrum/ordinate.ts";
 import { fitBandsCm1 } from "../bands/fit_bands.ts";
+import { valueAt } from "../spectrum/linear_resample.ts";
 
 /** The metrics. */
 export type ResponseMetric = "band-area" | "band-height" | "alpha-at";
@@ -40,16 +41,6 @@ export function alphaOf(spectrum: Spectrum): Float64Array<ArrayBuffer> {
   return spectrumAbsorbance(spectrum).map((a) => (a * Math.LN10) / (d / 10));
 }
 
-function interpolate(nm: Float64Array, y: Float64Array, at: number): number {
-  if (at < nm[0]! || at > nm[nm.length - 1]!) {
-    throw new RangeError(`Cannot read ${at} nm: outside the data`);
-  }
-  let j = 0;
-  while (j < nm.length - 2 && nm[j + 1]! < at) j++;
-  const f = (at - nm[j]!) / (nm[j + 1]! - nm[j]!);
-  return y[j]! * (1 - f) + y[j + 1]! * f;
-}
-
 /**
  * The response of a spectrum for a metric.
  *
@@ -74,7 +65,7 @@ export function spectrumResponse(
     const base = inWindow.reduce((a, b) => a + b, 0) / inWindow.length;
     const sd = Math.sqrt(inWindow.reduce((s, v) => s + (v - base) ** 2, 0) / (inWindow.length - 1));
     return {
-      value: interpolate(nm, alpha, at) - base,
+      value: valueAt(nm, alpha, at) - base,
       sigma: sd * Math.sqrt(1 + 1 / inWindow.length),
     };
   }

@@ -6,3 +6,4 @@
 export * from "./spectrum.ts";
 export * from "./ordinate.ts";
 export * from "./axis.ts";
+export * from "./linear_resample.ts";

@@ -1,21 +1,9 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
+import { ROOT, runCli } from "../_run_cli.ts";
 
-const root = decodeURIComponent(new URL("../../", import.meta.url).pathname);
-const fixture = (p: string) => `${root}test/fixtures/${p}`;
-
-async function run(...args: string[]) {
-  const out = await new Deno.Command(Deno.execPath(), {
-    args: ["run", "--allow-read", "--allow-env", `${root}cli/main.ts`, ...args],
-    stdout: "piped",
-    stderr: "piped",
-  }).output();
-  return {
-    code: out.code,
-    stdout: new TextDecoder().decode(out.stdout),
-    stderr: new TextDecoder().decode(out.stderr),
-  };
-}
+const fixture = (p: string) => `${ROOT}test/fixtures/${p}`;
+const run = runCli;
 
 describe("crystint change (machine contract)", () => {
   it("--json rows carry sample, file, from, to, observer, dE00, dEab, dL, dC, dh", async () => {

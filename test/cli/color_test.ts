@@ -1,19 +1,9 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
+import { ROOT, runCli } from "../_run_cli.ts";
 
-const root = decodeURIComponent(new URL("../../", import.meta.url).pathname);
-const fixture = (p: string) => `${root}test/fixtures/${p}`;
-
-async function run(...args: string[]) {
-  const out = await new Deno.Command(Deno.execPath(), {
-    args: ["run", "--allow-read", "--allow-write", "--allow-env", `${root}cli/main.ts`, ...args],
-    cwd: root,
-    stdout: "piped",
-    stderr: "piped",
-  }).output();
-  const dec = new TextDecoder();
-  return { code: out.code, stdout: dec.decode(out.stdout), stderr: dec.decode(out.stderr) };
-}
+const fixture = (p: string) => `${ROOT}test/fixtures/${p}`;
+const run = runCli;
 
 const KEYS = [
   "sample",
