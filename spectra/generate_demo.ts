@@ -256,7 +256,7 @@ reflection: host
 calibrations:
   cr-corundum: ../../reports/demo/cr-calibration.json
 targets:
-  pink-sapphire: { L: 45, a: 15, b: 6, illuminant: D65, observer: "10", toleranceDE00: 3 }
+  pink-sapphire: { under: { D65: [45, 15, 6], A: [47, 27, 4] }, observer: "10", toleranceDE00: 3 }
 `,
 );
 // Analysed standards (invented values: Cr2O3 by an outside laboratory, with its uncertainty),

@@ -29,6 +29,9 @@ import {
   reportRow,
 } from "../report/report_data.ts";
 import { renderReport } from "../report/render_report.ts";
+import { readSpectrumFile } from "../io/read_file.ts";
+import { transmittanceForPath } from "../optics/path_transmittance.ts";
+import { spectrumColour } from "../cie/spectrum_colour.ts";
 
 /** What to run. */
 export interface BatchOptions {
@@ -149,6 +152,31 @@ async function readCached(path: string): Promise<SampleResult[] | undefined> {
   }
 }
 
+/** Fills in the target colours of targets given as a reference spectrum. */
+async function resolveTargetSpectra(settings: BatchSettings): Promise<void> {
+  const all = [...(settings.target ? [settings.target] : []), ...Object.values(settings.targets)];
+  for (const t of all) {
+    if (!t.spectrum) continue;
+    let spectrum;
+    try {
+      [spectrum] = await readSpectrumFile(t.spectrum);
+    } catch (e) {
+      throw new SettingsError(
+        `Cannot read the target's reference spectrum: ${(e as Error).message}`,
+      );
+    }
+    const values = transmittanceForPath(spectrum!, t.spectrumPathMm).values;
+    const rows = spectrumColour(spectrum!, {
+      illuminants: [t.illuminant, ...t.also.map((c) => c.illuminant)],
+      observers: [t.observer],
+      transmittance: values,
+    });
+    [t, ...t.also].forEach((c, i) =>
+      Object.assign(c, { L: rows[i]!.L, a: rows[i]!.a, b: rows[i]!.b })
+    );
+  }
+}
+
 /**
  * Runs a batch.
  *
@@ -160,6 +188,7 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
     ? await readSettingsFile(options.settingsPath)
     : options.settings ?? defaultSettings();
   const rows: ManifestRow[] = options.manifestPath ? await readManifest(options.manifestPath) : [];
+  await resolveTargetSpectra(settings);
   const calibrations: Record<string, Calibration> = {};
   const named = {
     ...settings.calibrations,

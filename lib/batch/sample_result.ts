@@ -72,6 +72,14 @@ export interface SampleResult {
       L: number;
       a: number;
       b: number;
+      /** One check per illuminant of the target; pass and dE00 above cover all of them. */
+      checks: (TargetCheck & {
+        illuminant: string;
+        L: number;
+        a: number;
+        b: number;
+        measured: { L: number; a: number; b: number };
+      })[];
     })
     | null;
   /** Transmittance at the reporting path, thinned to at most 300 points, for the charts. */
@@ -212,19 +220,34 @@ function resultFor(
   }
   let target: SampleResult["target"] = null;
   if (s.target) {
-    const row = spectrumColour(spectrum, {
-      illuminants: [s.target.illuminant],
-      observers: [s.target.observer],
-      transmittance: t,
-    })[0]!;
+    const goal = s.target;
+    const checks = [goal, ...goal.also].map((c) => {
+      const row = spectrumColour(spectrum, {
+        illuminants: [c.illuminant],
+        observers: [goal.observer],
+        transmittance: t,
+      })[0]!;
+      const measured = { L: row.L, a: row.a, b: row.b };
+      return {
+        ...checkTarget(measured, c, goal.toleranceDE00),
+        illuminant: row.illuminant,
+        L: c.L,
+        a: c.a,
+        b: c.b,
+        measured,
+      };
+    });
+    const worst = checks.reduce((w, c) => (c.dE00 > w.dE00 ? c : w), checks[0]!);
     target = {
-      ...checkTarget({ L: row.L, a: row.a, b: row.b }, s.target, s.target.toleranceDE00),
-      name: s.target.name,
-      illuminant: s.target.illuminant,
-      observer: s.target.observer,
-      L: s.target.L,
-      a: s.target.a,
-      b: s.target.b,
+      ...checks[0]!,
+      pass: checks.every((c) => c.pass),
+      dE00: worst.dE00,
+      words: checks.length > 1
+        ? checks.map((c) => `${c.illuminant}: ${c.words}`).join("; ")
+        : checks[0]!.words,
+      name: goal.name,
+      observer: goal.observer,
+      checks,
     };
   }
   let bands: SampleResult["bands"] = null;

@@ -9,15 +9,25 @@ import { getObserver } from "../cie/observers.ts";
 import { getHost, parseSellmeier } from "../optics/refractive_index.ts";
 import { axisFromText, ordinateFromText } from "../io/header_units.ts";
 
-/** A target colour with its tolerance. */
-export interface TargetSetting {
+/** A target colour under one illuminant. */
+export interface TargetColour {
   L: number;
   a: number;
   b: number;
   illuminant: string;
+}
+
+/** A target colour with its tolerance: under one illuminant, or several (e.g. D65 and A). */
+export interface TargetSetting extends TargetColour {
   observer: string;
-  /** Pass when ΔE00 ≤ this (common practice in production control, not a standard). */
+  /** Pass when ΔE00 ≤ this under every illuminant (common practice, not a standard). */
   toleranceDE00: number;
+  /** The same target under further illuminants. */
+  also: TargetColour[];
+  /** A reference spectrum the target colours are taken from (resolved before the run). */
+  spectrum?: string;
+  /** Path for the reference spectrum's colour, mm (default: as measured). */
+  spectrumPathMm?: number;
 }
 
 /** Everything a batch run is configured by. */
@@ -94,19 +104,53 @@ function target(v: unknown, where: string): TargetSetting {
     throw new SettingsError(`Setting ${where} must be an object with L, a, b`);
   }
   const o = v as Record<string, unknown>;
-  const t: TargetSetting = {
-    L: num(o.L, `${where}.L`),
-    a: num(o.a, `${where}.a`),
-    b: num(o.b, `${where}.b`),
-    illuminant: String(o.illuminant ?? "D65"),
-    observer: String(o.observer ?? "10"),
-    toleranceDE00: o.toleranceDE00 === undefined
-      ? 2
-      : num(o.toleranceDE00, `${where}.toleranceDE00`, true),
+  const observer = String(o.observer ?? "10");
+  const toleranceDE00 = o.toleranceDE00 === undefined
+    ? 2
+    : num(o.toleranceDE00, `${where}.toleranceDE00`, true);
+  check(() => getObserver(observer), `${where}.observer`);
+  const lab = (x: unknown, at: string, illuminant: string): TargetColour => {
+    check(() => getIlluminant(illuminant), `${at}`);
+    if (Array.isArray(x) && x.length === 3) {
+      return {
+        L: num(x[0], `${at}[0]`),
+        a: num(x[1], `${at}[1]`),
+        b: num(x[2], `${at}[2]`),
+        illuminant,
+      };
+    }
+    const r = (x ?? {}) as Record<string, unknown>;
+    return { L: num(r.L, `${at}.L`), a: num(r.a, `${at}.a`), b: num(r.b, `${at}.b`), illuminant };
   };
-  check(() => getIlluminant(t.illuminant), `${where}.illuminant`);
-  check(() => getObserver(t.observer), `${where}.observer`);
-  return t;
+  let colours: TargetColour[];
+  const t: Partial<TargetSetting> = {};
+  if (o.spectrum !== undefined) {
+    const ills = o.illuminants === undefined
+      ? ["D65", "A"]
+      : (Array.isArray(o.illuminants) ? o.illuminants : String(o.illuminants).split(",")).map((x) =>
+        String(x).trim()
+      );
+    colours = ills.map((
+      ill,
+    ) => (check(() => getIlluminant(ill), `${where}.illuminants`),
+      { L: NaN, a: NaN, b: NaN, illuminant: ill })
+    );
+    t.spectrum = String(o.spectrum);
+    if (o.spectrumPathMm !== undefined) {
+      t.spectrumPathMm = num(o.spectrumPathMm, `${where}.spectrumPathMm`, true);
+    }
+  } else if (o.under !== undefined) {
+    if (!o.under || typeof o.under !== "object") {
+      throw new SettingsError(`Setting ${where}.under must map illuminants to L, a, b`);
+    }
+    colours = Object.entries(o.under as Record<string, unknown>).map(([ill, x]) =>
+      lab(x, `${where}.under.${ill}`, ill)
+    );
+  } else {
+    colours = [lab(o, where, String(o.illuminant ?? "D65"))];
+  }
+  if (colours.length === 0) throw new SettingsError(`Setting ${where} names no target colour`);
+  return { ...colours[0]!, observer, toleranceDE00, also: colours.slice(1), ...t } as TargetSetting;
 }
 
 function check(f: () => unknown, where: string) {
@@ -272,6 +316,11 @@ export async function readSettingsFile(path: string): Promise<BatchSettings> {
   const dir = path.replace(/[^/\\]*$/, "");
   const rel = (p: string) => (/^([a-zA-Z]:)?[\\/]/.test(p) ? p : `${dir}${p}`);
   if (settings.calibration) settings.calibration = rel(settings.calibration);
+  for (
+    const t of [...(settings.target ? [settings.target] : []), ...Object.values(settings.targets)]
+  ) {
+    if (t.spectrum) t.spectrum = rel(t.spectrum);
+  }
   for (const k of Object.keys(settings.calibrations)) {
     settings.calibrations[k] = rel(settings.calibrations[k]!);
   }

@@ -156,3 +156,42 @@ describe("batch building blocks", () => {
     );
   });
 });
+
+describe("targets in a batch", () => {
+  it("a target under D65 and A, and a target given as a reference spectrum, checked under each light", async () => {
+    const lot = await makeLot(2, false);
+    const out = await Deno.makeTempDir();
+    const reference = `${lot}/stone-001.csv`;
+    const settings = `${out}/s.yaml`;
+    await Deno.writeTextFile(
+      settings,
+      `target: { spectrum: ${reference}, illuminants: [D65, A], observer: "10", toleranceDE00: 0.5 }\n` +
+        `targets:\n  pair: { under: { D65: [50, 20, -10], A: [52, 26, -12] }, observer: "10" }\n`,
+    );
+    const sheet = `${out}/sheet.csv`;
+    await Deno.writeTextFile(sheet, "file,target\nstone-000.csv,pair\nstone-001.csv,\n");
+    expect(
+      (await runCli(
+        "batch",
+        lot,
+        "--out",
+        out,
+        "--settings",
+        settings,
+        "--manifest",
+        sheet,
+        "--quiet",
+      )).code,
+    ).toBe(0);
+    const { samples } = JSON.parse(await Deno.readTextFile(`${out}/results.json`));
+    const self = samples.find((s: { sample: string }) => s.sample === "stone-001").target;
+    expect(self.checks.map((c: { illuminant: string }) => c.illuminant)).toEqual(["D65", "A"]);
+    expect(self.dE00).toBeLessThan(1e-9);
+    expect(self.pass).toBe(true);
+    const pair = samples.find((s: { sample: string }) => s.sample === "stone-000").target;
+    expect(pair.name).toBe("pair");
+    expect(pair.checks.length).toBe(2);
+    expect(pair.checks[1].L).toBe(52);
+    expect(pair.dE00).toBe(Math.max(...pair.checks.map((c: { dE00: number }) => c.dE00)));
+  });
+});
