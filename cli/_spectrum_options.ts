@@ -38,7 +38,8 @@ export const SPECTRUM_OPTIONS_HELP =
   --path MM           path length to compute for, mm
   --reflection MODE   none (Beer–Lambert on the measured absorbance, default) or host
                       (remove and restore the two Fresnel surfaces using n(λ))
-  --host NAME         host crystal for n(λ): corundum, yag, spinel, chrysoberyl, quartz, beryl
+  --host NAME         host crystal for n(λ): corundum (default with --reflection host), yag,
+                      spinel, chrysoberyl, quartz, beryl
   --n VALUE           constant refractive index instead of a host
   --sellmeier COEFFS  your own Sellmeier fit: B1,B2,B3:C1,C2,C3 (C in µm) or A;B…:C… (C in µm²)
   --json | --csv      machine-readable output on stdout`;
@@ -104,7 +105,11 @@ export function reflectionFrom(values: SharedValues): ReflectionSettings {
     mode === "host" && settings.host === undefined && settings.n === undefined &&
     !settings.dispersion
   ) {
-    throw new UsageError("--reflection host needs --host NAME, --n VALUE or --sellmeier COEFFS");
+    // the host most users of this tool measure; said on stderr, so it is never a silent choice
+    settings.host = getHost("corundum");
+    log(
+      "crystint: --reflection host without --host, --n or --sellmeier: using corundum indices (give --host to choose)",
+    );
   }
   return settings;
 }

@@ -36,10 +36,18 @@ describe("crystint change (machine contract)", () => {
       1,
     );
   });
-  it("color --reflection host needs a host or n; with one it runs", async () => {
-    expect((await run("color", fixture("colour/ramp_2nm.csv"), "--reflection", "host")).code).toBe(
-      1,
+  it("color --reflection host without a host says it uses corundum; with a host it runs", async () => {
+    const bare = await run(
+      "color",
+      fixture("colour/ramp_2nm.csv"),
+      "--reflection",
+      "host",
+      "--thickness",
+      "2",
+      "--json",
     );
+    expect(bare.code).toBe(0);
+    expect(bare.stderr).toMatch(/using corundum indices/);
     const r = await run(
       "color",
       fixture("colour/ramp_2nm.csv"),
