@@ -19,9 +19,13 @@ export interface DominantWavelength {
   purity: number;
 }
 
-/** The spectral locus (x, y) of an observer at 1 nm, 360–830 nm. */
+const loci = new Map<string, { nm: number[]; x: number[]; y: number[] }>();
+
+/** The spectral locus (x, y) of an observer at 1 nm, 360–830 nm (computed once per observer). */
 export function spectralLocus(observer: string): { nm: number[]; x: number[]; y: number[] } {
   const o = getObserver(observer);
+  const hit = loci.get(o.name);
+  if (hit) return hit;
   const nm: number[] = [], x: number[] = [], y: number[] = [];
   for (let i = 0; i < GRID_LENGTH; i++) {
     const s = o.x[i]! + o.y[i]! + o.z[i]!;
@@ -30,7 +34,26 @@ export function spectralLocus(observer: string): { nm: number[]; x: number[]; y:
     x.push(o.x[i]! / s);
     y.push(o.y[i]! / s);
   }
-  return { nm, x, y };
+  const locus = { nm, x, y };
+  loci.set(o.name, locus);
+  return locus;
+}
+
+const visible = new Map<string, { lx: number[]; ly: number[]; ln: number[] }>();
+
+/** The locus from 380 to 700 nm, where it does not fold back on itself. */
+function visibleLocus(observer: string) {
+  const hit = visible.get(observer);
+  if (hit) return hit;
+  const locus = spectralLocus(observer);
+  const keep = locus.nm.map((nm, i) => (nm >= 380 && nm <= 700 ? i : -1)).filter((i) => i >= 0);
+  const v = {
+    lx: keep.map((i) => locus.x[i]!),
+    ly: keep.map((i) => locus.y[i]!),
+    ln: keep.map((i) => locus.nm[i]!),
+  };
+  visible.set(observer, v);
+  return v;
 }
 
 /** Intersection parameter t ≥ 0 of ray p + t·d with segment a–b (u in 0..1), or undefined. */
@@ -68,11 +91,7 @@ export function dominantWavelength(
   const dist = Math.hypot(dx, dy);
   if (dist < 1e-9) return undefined;
   // Use the locus from 380 to 700 nm: beyond it the chromaticities fold back on themselves.
-  const locus = spectralLocus(observer);
-  const keep = locus.nm.map((nm, i) => (nm >= 380 && nm <= 700 ? i : -1)).filter((i) => i >= 0);
-  const lx = keep.map((i) => locus.x[i]!),
-    ly = keep.map((i) => locus.y[i]!),
-    ln = keep.map((i) => locus.nm[i]!);
+  const { lx, ly, ln } = visibleLocus(observer);
   const find = (sx: number, sy: number) => {
     let best: { t: number; nm: number } | undefined;
     for (let k = 0; k + 1 < lx.length; k++) {

@@ -24,6 +24,9 @@ const METHODS = [
   "A marked colour change (tag) means |Δh| at or above the threshold in the settings with C*ab above a floor under both lights — common-practice thresholds, not a standard.",
 ];
 
+/** Summary rows shown in the page; larger batches are summarised in results.csv/json. */
+export const ROW_LIMIT = 5000;
+
 function lch([L, C, h]: [number, number, number]): string {
   return `${L.toFixed(1)} · ${C.toFixed(1)} · ${h.toFixed(0)}°`;
 }
@@ -71,7 +74,12 @@ export function renderReport(input: ReportInput, chartJs: string): string {
   const passed = input.rows.filter((r) => r.target?.pass).length;
   const targeted = input.rows.filter((r) => r.target).length;
   const calibrations = input.calibrations ?? [];
-  const data = { rows: input.rows, details: input.details, locus: input.locus, calibrations };
+  const data = {
+    rows: input.rows.slice(0, ROW_LIMIT),
+    details: input.details,
+    locus: input.locus,
+    calibrations,
+  };
   const limited = input.rows.length > Object.keys(input.details).length;
   return `<!doctype html>
 <html lang="en">
@@ -110,9 +118,14 @@ export function renderReport(input: ReportInput, chartJs: string): string {
 <th data-key="dopant">dopant</th><th></th>
 </tr></thead>
 <tbody>
-${input.rows.map((r) => row(r, r.index in input.details)).join("\n")}
+${input.rows.slice(0, ROW_LIMIT).map((r) => row(r, r.index in input.details)).join("\n")}
 </tbody>
 </table>
+${
+    input.rows.length > ROW_LIMIT
+      ? `<p>The table shows the first ${ROW_LIMIT} of ${input.rows.length} samples; results.csv and results.json hold all of them.</p>`
+      : ""
+  }
 ${
     limited
       ? `<p>Charts are included for the first ${input.detailLimit} samples; results.json holds all of them.</p>`
