@@ -22,6 +22,8 @@ Usage:
 Options:
   --host NAME         host for the assignment hints (corundum, spinel, yag, chrysoberyl, beryl)
   --range-nm A-B      fit only this wavelength range, e.g. 330-900
+  --baseline-nm LIST  band-free windows for the starting baseline, e.g. 330-340,740-780
+                      (default: found automatically outside the detected bands)
   --ordinate KIND     transmittance | percent | absorbance | alpha (default: from the file)
   --axis UNIT         nm | um | cm-1 | ev (default: from the file)
   --thickness MM      measured thickness, mm (only used for α files)
@@ -51,6 +53,7 @@ export async function bandsCommand(args: string[]): Promise<number> {
     thickness: { type: "string" },
     host: { type: "string" },
     "range-nm": { type: "string" },
+    "baseline-nm": { type: "string" },
     "oscillator-strength": { type: "string" },
     n: { type: "string" },
     merit: { type: "string" },
@@ -107,6 +110,20 @@ export async function bandsCommand(args: string[]): Promise<number> {
       urbachEv: number | null;
     };
   }
+  let windowsCm1: [number, number][] | undefined;
+  if (values["baseline-nm"] !== undefined) {
+    windowsCm1 = values["baseline-nm"].split(",").map((w) => {
+      const m = /^\s*(\d+(?:\.\d+)?)\s*-\s*(\d+(?:\.\d+)?)\s*$/.exec(w);
+      if (!m || !(Number(m[2]) > Number(m[1]))) {
+        throw new UsageError(`Option --baseline-nm needs FROM-TO windows, got "${w}"`);
+      }
+      return [1e7 / Number(m[2]), 1e7 / Number(m[1])] as [number, number];
+    });
+  }
+  const fitOptions = {
+    ...(rangeNm ? { rangeNm } : {}),
+    ...(windowsCm1 ? { baselineWindowsCm1: windowsCm1 } : {}),
+  };
   const results: SampleBands[] = [];
   const f = values["oscillator-strength"] === undefined
     ? undefined
@@ -129,7 +146,7 @@ export async function bandsCommand(args: string[]): Promise<number> {
   }
   const failed = await forEachFile(positionals, readOptionsFrom(values), (spectra, file) => {
     for (const s of spectra) {
-      const fit = fitSpectrumBands(s, rangeNm ? { rangeNm } : {});
+      const fit = fitSpectrumBands(s, fitOptions);
       const extra: Partial<SampleBands> = {};
       if (f !== undefined) {
         const alphaFit = s.quantity === "alpha" ? fit : fitSpectrumBands(

@@ -27,6 +27,28 @@ export function estimateNoise(values: ArrayLike<number>): number {
   return (dev[Math.floor(dev.length / 2)] ?? 0) / 0.6745 / Math.SQRT2;
 }
 
+/**
+ * Local noise σ at each point: the robust estimate of {@linkcode estimateNoise} over a moving
+ * window of ±`half` points, never below the global estimate. Absorbance computed from transmittance is far noisier where T is
+ * small, so one global figure would either drown weak bands or invent bands in dark regions.
+ */
+export function localNoise(values: ArrayLike<number>, half = 40): Float64Array {
+  const n = values.length;
+  const out = new Float64Array(n);
+  const global = estimateNoise(values);
+  const step = Math.max(1, Math.floor(half / 2));
+  for (let c = 0; c < n; c += step) {
+    const lo = Math.max(0, c - half), hi = Math.min(n, c + half + 1);
+    const slice: number[] = [];
+    for (let i = lo; i < hi; i++) slice.push(values[i]!);
+    const sigma = slice.length > 5 ? estimateNoise(slice) : global;
+    // never below the global figure: a window's own estimate scatters, and lowering the
+    // threshold on that scatter would invent bands
+    for (let i = c; i < Math.min(n, c + step); i++) out[i] = Math.max(sigma, global, 1e-12);
+  }
+  return out;
+}
+
 /** Resamples (x ascending) onto a uniform grid of the same length, linearly. */
 export function uniformResample(
   x: ArrayLike<number>,
@@ -68,6 +90,7 @@ export function detectBands(
   const u = uniformResample(x, y);
   const n = u.x.length;
   const noise = Math.max(estimateNoise(u.y), 1e-12);
+  const local = localNoise(u.y);
   // Fine scales first: a coarser window only adds a band where no finer one found any, so
   // overlapping bands resolved at a fine scale are not swallowed by their blurred sum.
   const kept: (BandCandidate & { lo: number; hi: number })[] = [];
@@ -81,7 +104,8 @@ export function detectBands(
     const lobes = new Map<number, BandCandidate & { lo: number; hi: number }>();
     for (let i = half; i < n - half; i++) {
       const v = d2[i]!;
-      if (!(v < d2[i - 1]! && v <= d2[i + 1]!) || -v < threshold * d2Noise) continue;
+      const here = local[i]! / noise;
+      if (!(v < d2[i - 1]! && v <= d2[i + 1]!) || -v < threshold * d2Noise * here) continue;
       let lo = i, hi = i;
       while (lo > 0 && d2[lo]! < 0) lo--;
       while (hi < n - 1 && d2[hi]! < 0) hi++;

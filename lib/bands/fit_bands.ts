@@ -14,7 +14,13 @@ import {
   type ModelLayout,
   parameterCount,
 } from "./band_model.ts";
-import { type BandCandidate, detectBands, estimateNoise, uniformResample } from "./detect_bands.ts";
+import {
+  type BandCandidate,
+  detectBands,
+  estimateNoise,
+  localNoise,
+  uniformResample,
+} from "./detect_bands.ts";
 import { levenbergMarquardt } from "./levenberg_marquardt.ts";
 
 /** One fitted band with 1σ standard errors. */
@@ -130,7 +136,7 @@ function linearBaselineStart(
  *
  * @throws {RangeError} For fewer points than parameters.
  */
-export function fitBandsCm1(
+function fitOnce(
   xIn: ArrayLike<number>,
   yIn: ArrayLike<number>,
   options: FitOptions = {},
@@ -185,11 +191,14 @@ export function fitBandsCm1(
     lower[3 * candidates.length + k] = -Infinity;
     upper[3 * candidates.length + k] = Infinity;
   });
+  // weights 1/σᵢ² from the local noise (relative weights: the covariance is still scaled by
+  // the residual variance), so dark, noisy stretches of absorbance do not steer the fit
+  const weights = localNoise(y).map((v) => 1 / (v * v));
   const fit = levenbergMarquardt(
     y,
     (params, out, jac) => evaluateModel(x, params, layout, out, jac),
     start,
-    { lower, upper },
+    { lower, upper, weights },
   );
   const cov = fit.covariance;
   const bands: FittedBand[] = candidates.map((_, b) => {
@@ -229,13 +238,44 @@ export function fitBandsCm1(
       midCm1: layout.mid,
       halfCm1: layout.half,
     },
-    residualRms: Math.sqrt(fit.rss / n),
+    residualRms: Math.sqrt(model.reduce((sum, m, i) => sum + (y[i]! - m) ** 2, 0) / n),
     noiseSigma,
     converged: fit.converged,
     iterations: fit.iterations,
     ordinate,
     curve: { cm1: x, data: y, model },
   };
+}
+
+/** Detected bands whose fitted height is below this many standard errors are dropped and the fit redone. */
+export const MIN_BAND_SIGNIFICANCE = 3;
+
+/**
+ * Fits bands to data y at wavenumbers x (cm⁻¹; any order, any spacing). Automatically detected
+ * bands that the fit cannot tell from zero (height < 3σ) are dropped and the fit redone.
+ *
+ * @throws {RangeError} For fewer points than parameters.
+ */
+export function fitBandsCm1(
+  xIn: ArrayLike<number>,
+  yIn: ArrayLike<number>,
+  options: FitOptions = {},
+  ordinate: BandFit["ordinate"] = "absorbance",
+): BandFit {
+  let fit = fitOnce(xIn, yIn, options, ordinate);
+  if (options.candidates) return fit;
+  for (let round = 0; round < 3; round++) {
+    const keep = fit.bands.filter((b) => b.height >= MIN_BAND_SIGNIFICANCE * b.heightSigma);
+    if (keep.length === fit.bands.length || keep.length === 0) break;
+    const candidates = keep.map((b) => ({
+      centerCm1: b.centerCm1,
+      fwhmCm1: b.fwhmCm1,
+      height: b.height,
+      significance: b.height / b.heightSigma,
+    }));
+    fit = fitOnce(xIn, yIn, { ...options, candidates }, ordinate);
+  }
+  return fit;
 }
 
 /**

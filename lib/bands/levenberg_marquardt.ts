@@ -169,7 +169,24 @@ export function levenbergMarquardt(
   }
   const dof = Math.max(1, n - p);
   const s2 = rss / dof;
-  const covariance = invertSpd(jtj, p).map((v) => v * s2);
+  // Parameters held at a bound (or with no influence) are left out of the covariance; their
+  // σ is NaN ("not determined"), the others come from the inverse of the free block.
+  const free: number[] = [];
+  for (let k = 0; k < p; k++) {
+    const near = (bound: number | undefined) =>
+      bound !== undefined && Number.isFinite(bound) &&
+      Math.abs(params[k]! - bound) <= 1e-12 * Math.max(1, Math.abs(bound));
+    const atLower = near(lower?.[k]), atUpper = near(upper?.[k]);
+    if (!atLower && !atUpper && jtj[k * p + k]! > 0) free.push(k);
+  }
+  const m = free.length;
+  const block = new Float64Array(m * m);
+  free.forEach((r, i) => free.forEach((c, j) => (block[i * m + j] = jtj[r * p + c]!)));
+  const inverse = invertSpd(block, m);
+  const covariance = new Float64Array(p * p).fill(NaN);
+  free.forEach((r, i) =>
+    free.forEach((c, j) => (covariance[r * p + c] = inverse[i * m + j]! * s2))
+  );
   const sigmas = Float64Array.from({ length: p }, (_, k) => Math.sqrt(covariance[k * p + k]!));
   return { params, sigmas, covariance, rss, residualSigma: Math.sqrt(s2), iterations, converged };
 }

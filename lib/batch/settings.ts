@@ -50,7 +50,8 @@ export interface BatchSettings {
   target?: TargetSetting;
   /** Named targets the manifest's `target` column may refer to. */
   targets: Record<string, TargetSetting>;
-  series: { fromMm: number; toMm: number; steps: number };
+  /** Thickness series range; `targetL` asks for the path that reaches that L*. */
+  series: { fromMm: number; toMm: number; steps: number; targetL?: number };
   /** Hue difference (degrees) from which a D65→A change is called marked (common practice). */
   changeHueThresholdDeg: number;
   /** Smallest C*ab (under both lights) for a change to be called marked (common practice). */
@@ -263,6 +264,7 @@ export function resolveSettings(raw: unknown): BatchSettings {
         ? s.series.steps
         : Math.round(num(r.steps, "series.steps", true)),
     };
+    if (r.targetL !== undefined) s.series.targetL = num(r.targetL, "series.targetL");
     if (s.series.toMm <= s.series.fromMm) {
       throw new SettingsError("Setting series.toMm must exceed series.fromMm");
     }
