@@ -13,7 +13,7 @@ Sources (read, not modified):
       (CIE 15:2018 Table 10).
   /usr/share/color/argyll/ref/CIE_C.sp (Debian argyll)
       CIE illuminant C 320-780 nm at 5 nm (CIE 15:2018 Table 5).
-The CIE tables are published data; the Debian copies are used as a convenient transcription.
+The CIE tables are published data; the Debian copies are used as a convenient machine-readable copy.
 Run: /usr/bin/python3 tools/generate_cie_tables.py  (needs colord-data and argyll installed).
 """
 import re, pathlib
@@ -68,17 +68,17 @@ cmf("cie_1964_10deg", "spectra/reference/cie_1964_10deg_1nm.csv",
 s, rows = cgats("/usr/share/colord/ref/CIE-1986-daylight-SPD.cmf")
 write("daylight_components", "// CIE daylight components S0, S1, S2, 5 nm, 300-830 nm (relative).\n"
       "// Source: CIE 15:2018 Table 6 (5 nm values are linear interpolations of the 10 nm values),\n"
-      "// transcribed from Debian colord-data ref/CIE-1986-daylight-SPD.cmf.",
+      "// copied from Debian colord-data ref/CIE-1986-daylight-SPD.cmf.",
       ["s0", "s1", "s2"], s, 5, rows)
 
 s, rows = cgats("/usr/share/colord/illuminant/CIE-D65.sp", 100)
 write("illuminant_d65", "// CIE standard illuminant D65, relative SPD (S(560) = 100), 5 nm, 300-830 nm.\n"
-      "// Source: CIE 15:2018 Table 5 / ISO 11664-2, transcribed from Debian colord-data (x100).",
+      "// Source: CIE 15:2018 Table 5 / ISO 11664-2, copied from Debian colord-data (x100).",
       ["d65"], s, 5, rows)
 
 s, rows = cgats("/usr/share/color/argyll/ref/CIE_C.sp")
 write("illuminant_c", "// CIE illuminant C, relative SPD, 5 nm, 320-780 nm (zero below 320 nm in the table).\n"
-      "// Source: CIE 15:2018 Table 5, transcribed from Debian argyll ref/CIE_C.sp.",
+      "// Source: CIE 15:2018 Table 5, copied from Debian argyll ref/CIE_C.sp.",
       ["c"], s, 5, rows)
 
 cols, names = [], []
@@ -86,6 +86,6 @@ for i in range(1, 13):
     s, rows = cgats(f"/usr/share/colord/illuminant/CIE-F{i}.sp", 100)
     cols.append(rows[0]); names.append(f"f{i}")
 write("illuminant_f", "// CIE fluorescent illuminants F1-F12, relative SPD, 5 nm, 380-780 nm.\n"
-      "// Source: CIE 15:2018 Table 10, transcribed from Debian colord-data (x100).",
+      "// Source: CIE 15:2018 Table 10, copied from Debian colord-data (x100).",
       names, 380, 5, cols)
 print("written", sorted(p.name for p in out.glob("*.ts")))

@@ -1,7 +1,7 @@
 #!/usr/bin/python3
 """Writes test/fixtures/colormath/reference.json from Debian's python3-colormath.
 
-Holds (a) colormath's 10 nm CIE observer and illuminant tables, an independent transcription
+Holds (a) colormath's 10 nm CIE observer and illuminant tables, an independent copy
 used to check crystint's stored tables, and (b) ΔE*ab, CIE94 and CMC(l:c) values colormath
 computes for a fixed set of CIELAB pairs.
 Run: /usr/bin/python3 tools/make_colormath_fixtures.py   (needs python3-colormath installed)

@@ -79,7 +79,7 @@ describe("observers against independent sources", () => {
     }
   });
 
-  it("1 nm values between the 5 nm points follow the 5 nm table smoothly (transcription check)", () => {
+  it("1 nm values between the 5 nm points follow the 5 nm table smoothly (copying check)", () => {
     // A slip in one digit of a 1 nm row would stand out against a cubic through its neighbours.
     for (const obs of [getObserver("2"), getObserver("10")]) {
       for (const c of [obs.x, obs.y, obs.z]) {
@@ -107,7 +107,7 @@ describe("illuminants against independent sources", () => {
       colormath.wavelengthNm.forEach((nm, i) => {
         // colormath's C table stops at 770 nm (0 at 780)
         if (nm < 380 || nm > (name === "C" ? 770 : 780)) return;
-        // colormath's tables come from an older transcription that differs from CIE 15:2018 by
+        // colormath's tables come from an older copy that differs from CIE 15:2018 by
         // up to 0.2 % (e.g. D65 at 410 nm: 91.42 there, 91.486 in CIE 15:2018; D50 at 380 nm:
         // 24.45 there, 24.488 in CIE 15:2018)
         expect(Math.abs(spd[nm - 360]! - ref[i]!)).toBeLessThanOrEqual(
