@@ -284,9 +284,6 @@ export function resolveSettings(raw: unknown): BatchSettings {
   if (o.changeHueThresholdDeg !== undefined) {
     s.changeHueThresholdDeg = num(o.changeHueThresholdDeg, "changeHueThresholdDeg", true);
   }
-  if (s.reflection === "host" && s.host === undefined && s.n === undefined) {
-    // a host may come per sample from the manifest; checked per sample
-  }
   return s;
 }
 

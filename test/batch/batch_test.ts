@@ -52,7 +52,7 @@ describe("crystint batch (machine contract)", () => {
   });
 
   it("killed with SIGKILL mid-run: no partial outputs, and the rerun equals an uninterrupted run", async () => {
-    const lot = await makeLot(120, false);
+    const lot = await makeLot(200, false);
     const out = await Deno.makeTempDir(), reference = await Deno.makeTempDir();
     const child = new Deno.Command(Deno.execPath(), {
       args: [
@@ -87,6 +87,11 @@ describe("crystint batch (machine contract)", () => {
     child.kill("SIGKILL");
     await child.status;
     expect(cached).toBeGreaterThanOrEqual(10);
+    // the run really was cut short: not every input had been computed, no results.json yet
+    const cachedAtKill =
+      [...Deno.readDirSync(`${out}/.cache`)].filter((e) => e.name.endsWith(".json")).length;
+    expect(cachedAtKill).toBeLessThan(200);
+    expect(await Deno.stat(`${out}/results.json`).then(() => true, () => false)).toBe(false);
     for (const name of ["results.json", "results.csv", "index.html"]) {
       const text = await Deno.readTextFile(`${out}/${name}`).catch(() => undefined);
       if (text !== undefined && name === "results.json") {

@@ -77,8 +77,13 @@ describe("metamerism index (CIE 15 §9.2.2)", () => {
     expect(metamerismIndex(s.wavelengthNm, s.values, s.values).index00).toBe(0);
     const scaled = s.values.map((v) => 0.8 * v);
     expect(metamerismIndex(s.wavelengthNm, s.values, scaled).index00).toBeLessThan(1e-9);
-    const other = await fixture("green_beryl_2nm");
-    expect(other.wavelengthNm.length).toBeGreaterThan(0);
+    // a different absorption in the red is not a uniform scale: the index stays above zero
+    const redder = s.values.map((v, i) =>
+      v * Math.exp(-0.8 * Math.exp(-0.5 * ((s.wavelengthNm[i]! - 640) / 25) ** 2))
+    );
+    const other = metamerismIndex(s.wavelengthNm, s.values, redder);
+    expect(other.mismatchReference).toBeGreaterThan(0.5);
+    expect(other.index00).toBeGreaterThan(0.1);
   });
 });
 
