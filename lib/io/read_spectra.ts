@@ -42,6 +42,16 @@ function findField(fields: Record<string, string>, pattern: RegExp): string | un
   return key === undefined ? undefined : fields[key];
 }
 
+/** The ordinate named by any preamble line that talks about it (the first one that reads). */
+function ordinateFromFields(fields: Record<string, string>): OrdinateKind | undefined {
+  for (const [k, v] of Object.entries(fields)) {
+    if (!/y\s*-?\s*units?|ordinate|data\s*type|quantity|mode|measurement/i.test(k)) continue;
+    const kind = ordinateFromText(v);
+    if (kind) return kind;
+  }
+  return undefined;
+}
+
 /** Thickness in mm from a metadata value such as `2.00 mm`, `0,2 cm` or `1500 µm`. */
 export function parseThicknessMm(value: string, key = ""): number | undefined {
   const m = /([+-]?\d+(?:[.,]\d+)?(?:[eE][+-]?\d+)?)\s*(mm|cm|µm|μm|um|m)?\b/.exec(value);
@@ -132,10 +142,7 @@ export function spectraFromTable(
   const axis = options.axis ?? axisReading.axis ??
     (fieldAxis ? axisFromText(fieldAxis) : undefined) ??
     inferAxis(xs, file, table.headerLine ?? table.rowLines[0], warnings);
-  const fieldOrdinate = findField(
-    table.fields,
-    /y\s*-?\s*units?|ordinate|data\s*type|quantity|^mode$/i,
-  );
+  const fieldOrdinate = ordinateFromFields(table.fields);
   const thicknessKey = Object.keys(table.fields).find((k) =>
     /thick|path\s*length|^path\b/i.test(k)
   );
@@ -190,7 +197,7 @@ export function spectraFromTable(
   for (let c = 1; c < width; c++) {
     const reading = header ? readOrdinateHeader(header[c]!) : {};
     const kind = options.ordinate ?? reading.ordinate ??
-      (fieldOrdinate ? ordinateFromText(fieldOrdinate) : undefined);
+      fieldOrdinate;
     if (!kind) {
       throw new InputError(
         "ambiguous-ordinate",

@@ -55,7 +55,18 @@ function chooseDelimiter(sample: string[]): TextTable["delimiter"] {
   return "whitespace";
 }
 
+/** Drops empty cells at the end of a record: many exports end every line with a delimiter. */
+function trimTrailingEmpty(cells: Line[]): Line[] {
+  let end = cells.length;
+  while (end > 1 && cells[end - 1]!.text === "") end--;
+  return end === cells.length ? cells : cells.slice(0, end);
+}
+
 function splitRecords(lines: Line[], delimiter: TextTable["delimiter"], file: string): Line[][] {
+  return splitCells(lines, delimiter, file).map(trimTrailingEmpty);
+}
+
+function splitCells(lines: Line[], delimiter: TextTable["delimiter"], file: string): Line[][] {
   if (delimiter === "whitespace") {
     return lines.map((l) => l.text.trim().split(/\s+/).map((t) => ({ text: t, no: l.no })));
   }

@@ -86,6 +86,10 @@ describe("reading well-formed exports of many layouts", () => {
     expect(s!.values[94]).toBe(1);
     expect(s!.meta.warnings?.join(" ")).toMatch(/2 value\(s\).*clipped/);
   });
+  it("the ordinate named in a preamble line, and a delimiter at the end of every line", async () => {
+    const s = await expectTruth("preamble_mode_trailing_delimiter.csv");
+    expect(s.meta.sample).toBe("Sample 1");
+  });
   it("a text footer after the table is kept as metadata", async () => {
     const [s] = await read("good", "footer_text.csv");
     expect(s!.wavelengthNm.length).toBe(95);
