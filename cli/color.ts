@@ -32,7 +32,8 @@ Usage:
 
 Options:
 ${SPECTRUM_OPTIONS_HELP}
-  --illuminant LIST   comma list: A, C, D50, D55, D65, D75, E, F1…F12, D<cct>K, or an SPD
+  --illuminant LIST   comma list: A, C, D50, D55, D65, D75, E, F1…F12, LED-B1…LED-V2,
+                      D<cct>K, or an SPD
                       file (default: D65,A)
   --observer LIST     2 (CIE 1931) and/or 10 (CIE 1964) (default: 2)
   -h, --help          show this help

@@ -11,6 +11,9 @@ Sources (read, not modified):
   /usr/share/colord/illuminant/CIE-D65.sp, CIE-F1..F12.sp (Debian colord-data, scaled 1/100)
       CIE D65 300-830 nm at 5 nm (CIE 15:2018 Table 5); F1-F12 380-780 nm at 5 nm
       (CIE 15:2018 Table 10).
+  spectra/reference/cie_led_illuminants_5nm.csv
+      CIE LED illuminants B1-B5, BH1, RGB1, V1, V2, 380-780 nm at 5 nm (CIE 15:2018 Table 11),
+      copied from the colour-science library's dataset (BSD-3-Clause), which cites CIE 15:2018.
   /usr/share/color/argyll/ref/CIE_C.sp (Debian argyll)
       CIE illuminant C 320-780 nm at 5 nm (CIE 15:2018 Table 5).
 The CIE tables are published data; the Debian copies are used as a convenient machine-readable copy.
@@ -88,4 +91,11 @@ for i in range(1, 13):
 write("illuminant_f", "// CIE fluorescent illuminants F1-F12, relative SPD, 5 nm, 380-780 nm.\n"
       "// Source: CIE 15:2018 Table 10, copied from Debian colord-data (x100).",
       names, 380, 5, cols)
+lines = (root / "spectra/reference/cie_led_illuminants_5nm.csv").read_text().split()
+names = lines[0].split(",")[1:]
+rows = [[float(v) for v in l.split(",")] for l in lines[1:]]
+assert [r[0] for r in rows] == list(range(380, 781, 5))
+write("illuminant_led", "// CIE LED illuminants B1-B5, BH1, RGB1, V1, V2, relative SPD, 5 nm, 380-780 nm.\n"
+      "// Source: CIE 15:2018 Table 11, copied from the colour-science dataset (BSD-3-Clause).",
+      names, 380, 5, [[r[i + 1] for r in rows] for i in range(len(names))])
 print("written", sorted(p.name for p in out.glob("*.ts")))

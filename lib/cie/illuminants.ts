@@ -1,13 +1,15 @@
 /**
  * Registry of illuminants by name, each as a relative SPD on the 360–830 nm 1 nm grid.
  * A from its Planck definition; D65 and C tabulated (CIE 15:2018 Table 5); other D-series
- * from the daylight recipe; E equal-energy; F1–F12 tabulated (CIE 15:2018 Table 10).
+ * from the daylight recipe; E equal-energy; F1–F12 tabulated (CIE 15:2018 Table 10); the
+ * LED illuminants B1–B5, BH1, RGB1, V1, V2 tabulated (CIE 15:2018 Table 11).
  *
  * @module
  */
 import { table as d65Table } from "./data/illuminant_d65.ts";
 import { table as cTable } from "./data/illuminant_c.ts";
 import { table as fTable } from "./data/illuminant_f.ts";
+import { table as ledTable } from "./data/illuminant_led.ts";
 import { daylightSpd, nominalToCct } from "./daylight.ts";
 import { illuminantASpd } from "./illuminant_a.ts";
 import { GRID_LENGTH, GRID_NM } from "./grid.ts";
@@ -81,6 +83,15 @@ function builtIn(name: string): Recipe | undefined {
       () => tabulatedTo1nm(fTable.startNm, fTable.stepNm, col, "sprague"),
     );
   }
+  const led = /^LED-(B[1-5]|BH1|RGB1|V[12])$/.exec(upper);
+  if (led) {
+    const col = ledTable.columns[led[1]!.toLowerCase()]!;
+    return make(
+      upper,
+      `CIE ${upper}, tabulated (CIE 15:2018 Table 11)`,
+      () => tabulatedTo1nm(ledTable.startNm, ledTable.stepNm, col, "sprague"),
+    );
+  }
   return undefined;
 }
 
@@ -105,6 +116,15 @@ export const ILLUMINANT_NAMES = [
   "F10",
   "F11",
   "F12",
+  "LED-B1",
+  "LED-B2",
+  "LED-B3",
+  "LED-B4",
+  "LED-B5",
+  "LED-BH1",
+  "LED-RGB1",
+  "LED-V1",
+  "LED-V2",
 ] as const;
 
 /**

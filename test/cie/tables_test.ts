@@ -13,6 +13,7 @@ import { table as daylight } from "../../lib/cie/data/daylight_components.ts";
 import { table as d65 } from "../../lib/cie/data/illuminant_d65.ts";
 import { table as illC } from "../../lib/cie/data/illuminant_c.ts";
 import { table as illF } from "../../lib/cie/data/illuminant_f.ts";
+import { table as illLed } from "../../lib/cie/data/illuminant_led.ts";
 
 const colormath = JSON.parse(
   Deno.readTextFileSync(new URL("../fixtures/colormath/reference.json", import.meta.url)),
@@ -31,6 +32,7 @@ describe("stored tables: headers agree with their data", () => {
     ["illuminant_d65", d65, 300, 830, 5, 107],
     ["illuminant_c", illC, 320, 780, 5, 93],
     ["illuminant_f", illF, 380, 780, 5, 81],
+    ["illuminant_led", illLed, 380, 780, 5, 81],
   ] as const;
   for (const [name, table, start, end, step, rows] of cases) {
     it(`${name}: ${start}–${end} nm, ${step} nm, ${rows} rows`, () => {

@@ -82,6 +82,26 @@ describe("white points on the 1 nm grid", () => {
     }
   });
 
+  it("LED illuminants: 2° chromaticities match CIE 15:2018 Table 11 within 5e-4", () => {
+    // CIE 15:2018 Table 11 (x, y, 2° observer), as listed with the tables' sources
+    const cases: [string, number, number][] = [
+      ["LED-B1", 0.456, 0.4078],
+      ["LED-B2", 0.4357, 0.4012],
+      ["LED-B3", 0.3756, 0.3723],
+      ["LED-B4", 0.3422, 0.3502],
+      ["LED-B5", 0.3118, 0.3236],
+      ["LED-BH1", 0.4474, 0.4066],
+      ["LED-RGB1", 0.4557, 0.4211],
+      ["LED-V1", 0.4548, 0.4044],
+      ["LED-V2", 0.3781, 0.3775],
+    ];
+    for (const [ill, x, y] of cases) {
+      const xy = xyzToXy(tristimulusWeights(GRID_NM, ill, "2").white);
+      expect(Math.abs(xy.x - x)).toBeLessThan(5e-4);
+      expect(Math.abs(xy.y - y)).toBeLessThan(5e-4);
+    }
+  });
+
   it("identity: Y of the white is exactly 100 for every illuminant and grid", () => {
     const grids = [
       GRID_NM,
