@@ -34,6 +34,12 @@ interface Line {
   no: number;
 }
 
+/** One split line: its cells and its 1-based line number. */
+interface Row {
+  cells: string[];
+  no: number;
+}
+
 function splitLines(text: string): Line[] {
   return text.split(/\r\n|\n|\r/).map((t, i) => ({ text: t.replace(/^\uFEFF/, ""), no: i + 1 }));
 }
@@ -56,39 +62,36 @@ function chooseDelimiter(sample: string[]): TextTable["delimiter"] {
 }
 
 /** Drops empty cells at the end of a record: many exports end every line with a delimiter. */
-function trimTrailingEmpty(cells: Line[]): Line[] {
+function trimTrailingEmpty(cells: string[]): string[] {
   let end = cells.length;
-  while (end > 1 && cells[end - 1]!.text === "") end--;
+  while (end > 1 && cells[end - 1] === "") end--;
   return end === cells.length ? cells : cells.slice(0, end);
 }
 
-function splitRecords(lines: Line[], delimiter: TextTable["delimiter"], file: string): Line[][] {
-  return splitCells(lines, delimiter, file).map(trimTrailingEmpty);
+function splitRecords(lines: Line[], delimiter: TextTable["delimiter"], file: string): Row[] {
+  return lines.map((l) => ({ cells: trimTrailingEmpty(splitCells(l, delimiter, file)), no: l.no }));
 }
 
-function splitCells(lines: Line[], delimiter: TextTable["delimiter"], file: string): Line[][] {
-  if (delimiter === "whitespace") {
-    return lines.map((l) => l.text.trim().split(/\s+/).map((t) => ({ text: t, no: l.no })));
+function splitCells(l: Line, delimiter: TextTable["delimiter"], file: string): string[] {
+  if (delimiter === "whitespace") return l.text.trim().split(/\s+/);
+  // Lines without quotes split exactly on the delimiter (fast for wide files); csv-parse
+  // handles every line that quotes a field.
+  if (!l.text.includes('"')) {
+    const cells = l.text.split(delimiter);
+    return /\s/.test(l.text) ? cells.map((t) => t.trim()) : cells;
   }
-  return lines.map((l) => {
-    // Lines without quotes split exactly on the delimiter (fast for wide files); csv-parse
-    // handles every line that quotes a field.
-    if (!l.text.includes('"')) {
-      return l.text.split(delimiter).map((t) => ({ text: t.trim(), no: l.no }));
-    }
-    try {
-      const cells: string[][] = parse(l.text, {
-        delimiter,
-        relax_column_count: true,
-        relax_quotes: true,
-        trim: true,
-        skip_empty_lines: false,
-      });
-      return (cells[0] ?? []).map((t) => ({ text: t, no: l.no }));
-    } catch (e) {
-      throw new InputError("malformed", file, l.no, `Cannot split line: ${(e as Error).message}`);
-    }
-  });
+  try {
+    const cells: string[][] = parse(l.text, {
+      delimiter,
+      relax_column_count: true,
+      relax_quotes: true,
+      trim: true,
+      skip_empty_lines: false,
+    });
+    return cells[0] ?? [];
+  } catch (e) {
+    throw new InputError("malformed", file, l.no, `Cannot split line: ${(e as Error).message}`);
+  }
 }
 
 /** Parses a cell as a number (decimal comma allowed when set); undefined when not numeric. */
@@ -127,24 +130,27 @@ export function readTextTable(text: string, file: string): TextTable {
   const delimiter = chooseDelimiter(numericSample);
   const records = splitRecords(lines, delimiter, file);
   const decimalComma = delimiter !== "," &&
-    records.some((r) =>
-      looksNumeric(r[0]?.text ?? "") && r.some((c) => /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(c.text))
+    records.filter((r) => looksNumeric(r.cells[0] ?? "")).slice(0, 200).some((r) =>
+      r.cells.some((c) => /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(c))
     );
-  const numericRow = (r: Line[]) =>
-    r.length >= 2 && r.every((c) => parseNumberCell(c.text, decimalComma) !== undefined);
+  const numericRow = (r: Row) =>
+    r.cells.length >= 2 && r.cells.every((c) => parseNumberCell(c, decimalComma) !== undefined);
   let start = -1;
   for (let i = 0; i < records.length; i++) {
     const r = records[i]!;
     const next = records[i + 1];
-    if (numericRow(r) && (next === undefined || (numericRow(next) && next.length === r.length))) {
+    if (
+      numericRow(r) &&
+      (next === undefined || (numericRow(next) && next.cells.length === r.cells.length))
+    ) {
       start = i;
       break;
     }
   }
   if (start < 0) {
-    const first = records.find((r) => looksNumeric(r[0]?.text ?? ""));
-    const bad = first?.find((c) => parseNumberCell(c.text, decimalComma) === undefined);
-    if (first && bad) throw cellError(file, bad, decimalComma);
+    const first = records.find((r) => looksNumeric(r.cells[0] ?? ""));
+    const bad = first?.cells.find((c) => parseNumberCell(c, decimalComma) === undefined);
+    if (first && bad !== undefined) throw cellError(file, bad, first.no, decimalComma);
     throw new InputError(
       "empty",
       file,
@@ -152,25 +158,25 @@ export function readTextTable(text: string, file: string): TextTable {
       "No table of at least two numeric columns found",
     );
   }
-  const width = records[start]!.length;
+  const width = records[start]!.cells.length;
   const fields: Record<string, string> = {};
   let header: string[] | undefined;
   let headerLine: number | undefined;
   const before = records.slice(0, start);
   const last = before[before.length - 1];
-  if (last && !numericRow(last) && last.length >= Math.min(2, width)) {
-    header = last.map((c) => c.text);
+  if (last && !numericRow(last) && last.cells.length >= Math.min(2, width)) {
+    header = last.cells;
     if (delimiter === "whitespace" && header.length !== width) {
       const raw = lines[before.length - 1]!.text.trim();
       const wide = raw.split(/\t|\s{2,}/);
       header = wide.length === width ? wide : header;
     }
-    headerLine = last[0]?.no;
+    headerLine = last.no;
     before.pop();
   }
   before.forEach((r, i) => {
     const raw = lines[i]!.text;
-    const kv = keyValue(r.map((c) => c.text), raw);
+    const kv = keyValue(r.cells, raw);
     if (kv) fields[kv[0]] = kv[1];
     else fields[`line ${lines[i]!.no}`] = raw.trim();
   });
@@ -178,31 +184,31 @@ export function readTextTable(text: string, file: string): TextTable {
   const rowLines: number[] = [];
   for (let i = start; i < records.length; i++) {
     const r = records[i]!;
-    if (!looksNumeric(r[0]?.text ?? "")) {
-      const nonFinite = r.find((c) => NON_FINITE.test(c.text.trim()));
-      if (nonFinite) throw cellError(file, nonFinite, decimalComma);
+    if (!looksNumeric(r.cells[0] ?? "")) {
+      const nonFinite = r.cells.find((c) => NON_FINITE.test(c.trim()));
+      if (nonFinite !== undefined) throw cellError(file, nonFinite, r.no, decimalComma);
       records.slice(i).forEach((f) => {
-        const kv = keyValue(f.map((c) => c.text), f.map((c) => c.text).join(" "));
-        fields[kv ? kv[0] : `line ${f[0]?.no}`] = kv ? kv[1] : f.map((c) => c.text).join(" ");
+        const kv = keyValue(f.cells, f.cells.join(" "));
+        fields[kv ? kv[0] : `line ${f.no}`] = kv ? kv[1] : f.cells.join(" ");
       });
       break;
     }
-    const values: number[] = [];
-    for (const c of r) {
-      const v = parseNumberCell(c.text, decimalComma);
-      if (v === undefined) throw cellError(file, c, decimalComma);
-      values.push(v);
+    const values: number[] = new Array(r.cells.length);
+    for (let k = 0; k < r.cells.length; k++) {
+      const v = parseNumberCell(r.cells[k]!, decimalComma);
+      if (v === undefined) throw cellError(file, r.cells[k]!, r.no, decimalComma);
+      values[k] = v;
     }
     if (values.length !== width) {
       throw new InputError(
         "malformed",
         file,
-        r[0]?.no,
+        r.no,
         `Row has ${values.length} fields where the table has ${width}`,
       );
     }
     rows.push(values);
-    rowLines.push(r[0]!.no);
+    rowLines.push(r.no);
   }
   const table: TextTable = { delimiter, decimalComma, rows, rowLines, fields, comments };
   if (header) table.header = header;
@@ -210,16 +216,16 @@ export function readTextTable(text: string, file: string): TextTable {
   return table;
 }
 
-function cellError(file: string, cell: Line, decimalComma: boolean): InputError {
-  const text = cell.text.trim();
+function cellError(file: string, cell: string, line: number, decimalComma: boolean): InputError {
+  const text = cell.trim();
   if (NON_FINITE.test(text)) {
-    return new InputError("non-finite", file, cell.no, `Value "${text}" is not a finite number`);
+    return new InputError("non-finite", file, line, `Value "${text}" is not a finite number`);
   }
   if (text === "") {
-    return new InputError("non-numeric", file, cell.no, "Empty cell in the data table");
+    return new InputError("non-numeric", file, line, "Empty cell in the data table");
   }
   const hint = !decimalComma && /^\d+,\d+$/.test(text)
     ? " (decimal comma with a comma delimiter?)"
     : "";
-  return new InputError("non-numeric", file, cell.no, `Cell "${text}" is not a number${hint}`);
+  return new InputError("non-numeric", file, line, `Cell "${text}" is not a number${hint}`);
 }
