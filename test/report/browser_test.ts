@@ -64,9 +64,21 @@ async function openReport(htmlPath: string, screenshot: string) {
         injectedImages: document.querySelectorAll("img").length,
       };
     });
+    // sorting: a click on the ΔE00 header orders the rows by that column
+    const sorted = await page.evaluate(() => {
+      const th = [...document.querySelectorAll("#summary th")].find((h) =>
+        h.textContent!.startsWith("ΔE00")
+      )!;
+      const col = [...th.parentElement!.children].indexOf(th);
+      (th as HTMLElement).click();
+      const values = [...document.querySelectorAll("#summary tbody tr")].map((tr) =>
+        Number((tr as HTMLTableRowElement).cells[col]!.getAttribute("data-value"))
+      );
+      return values.every((v, i) => i === 0 || v >= values[i - 1]!);
+    });
     await Deno.mkdir(`${ROOT}test/output`, { recursive: true });
     await page.screenshot({ path: screenshot, fullPage: false });
-    return { ...facts, problems };
+    return { ...facts, sorted, problems };
   } finally {
     await browser.close();
     await Deno.remove(profile, { recursive: true }).catch(() => {});
