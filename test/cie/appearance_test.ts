@@ -65,6 +65,30 @@ describe("colour change between illuminants", () => {
     }
   });
 
+  it("Bradford reproduces the published example of the colour-science library (chromatic_adaptation_VonKries docs)", () => {
+    // XYZ [0.20654008, 0.12197225, 0.05136952] from white [0.95045593, 1, 1.08905775] to
+    // [0.96429568, 1, 0.82510460] with Bradford → [0.2166600, 0.1260477, 0.0385506]
+    const s = (v: number[]) => ({ X: 100 * v[0]!, Y: 100 * v[1]!, Z: 100 * v[2]! });
+    const a = adaptXyz(
+      s([0.20654008, 0.12197225, 0.05136952]),
+      s([0.95045593, 1, 1.08905775]),
+      s([0.96429568, 1, 0.8251046]),
+      "bradford",
+    );
+    expect(a.X / 100).toBeCloseTo(0.21666, 5);
+    expect(a.Y / 100).toBeCloseTo(0.1260477, 6);
+    expect(a.Z / 100).toBeCloseTo(0.0385506, 6);
+    // CAT16 (Li et al. 2017) is a different cone space but must land close by
+    const c = adaptXyz(
+      s([0.20654008, 0.12197225, 0.05136952]),
+      s([0.95045593, 1, 1.08905775]),
+      s([0.96429568, 1, 0.8251046]),
+      "cat16",
+    );
+    expect(Math.abs(c.X - a.X)).toBeLessThan(0.5);
+    expect(Math.abs(c.Z - a.Z)).toBeLessThan(0.5);
+  });
+
   it("with --adapt the neutral stays neutral against the first white", () => {
     const c = colourChange(GRID_NM, new Float64Array(471).fill(0.5), "D65", "A", "2", "cat16");
     expect(c.dE00).toBeLessThan(1e-6);
