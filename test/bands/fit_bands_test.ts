@@ -214,3 +214,19 @@ describe("band catalogue and assignment", () => {
     expect(a[0]!.reason).toMatch(/centre 1[78]\d{3} cm⁻¹ vs 18000/);
   });
 });
+
+describe("figure of merit", () => {
+  it("closed form: α(490)/α(820) of a synthetic α spectrum", async () => {
+    const { figureOfMerit } = await import("../../lib/bands/mod.ts");
+    const nm = Float64Array.from({ length: 601 }, (_, i) => 300 + i);
+    const alpha = nm.map((w) => 2 * Math.exp(-0.5 * ((w - 490) / 40) ** 2) + 0.01);
+    const spectrum = {
+      wavelengthNm: nm,
+      values: alpha,
+      quantity: "alpha" as const,
+      meta: { sample: "ti" },
+    };
+    const expected = (2 + 0.01) / (2 * Math.exp(-0.5 * (330 / 40) ** 2) + 0.01);
+    expect(figureOfMerit(spectrum, 490, 820)).toBeCloseTo(expected, 9);
+  });
+});

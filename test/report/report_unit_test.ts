@@ -1,0 +1,33 @@
+import { describe, it } from "node:test";
+import { expect } from "expect";
+import { escapeHtml, jsonForScript, scriptForInline } from "../../lib/report/mod.ts";
+import { makeLot, runCli } from "../_run_cli.ts";
+
+describe("report escaping", () => {
+  it("escapes HTML text and attributes", () => {
+    expect(escapeHtml(`<a href="x">'&'</a>`)).toBe(
+      "&lt;a href=&quot;x&quot;&gt;&#39;&amp;&#39;&lt;/a&gt;",
+    );
+  });
+  it("JSON for a script element cannot close it and still parses to the same value", () => {
+    const value = { name: "</script><script>alert(1)</script>", line: "a\u2028b", amp: "&" };
+    const text = jsonForScript(value);
+    expect(text).not.toMatch(/<\/script/i);
+    expect(text).not.toContain("\u2028");
+    expect(JSON.parse(text)).toEqual(value);
+    expect(scriptForInline("x = '</script>'")).not.toMatch(/<\/script/i);
+  });
+});
+
+describe("crystint report", () => {
+  it("re-renders index.html from a saved results.json", async () => {
+    const lot = await makeLot(3, false);
+    const out = await Deno.makeTempDir(), again = await Deno.makeTempDir();
+    expect((await runCli("batch", lot, "--out", out, "--quiet")).code).toBe(0);
+    const r = await runCli("report", `${out}/results.json`, "--out", again);
+    expect(r.code).toBe(0);
+    const html = await Deno.readTextFile(`${again}/index.html`);
+    for (const name of ["stone-000", "stone-001", "stone-002"]) expect(html).toContain(name);
+    expect((await runCli("report", `${lot}/stone-000.csv`, "--out", again)).code).toBe(1);
+  });
+});
