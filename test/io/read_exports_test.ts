@@ -158,18 +158,21 @@ describe("totality: any bytes give spectra or an InputError", () => {
   it("never throws anything else on random and mutated input", async () => {
     const fc = await import("fast-check");
     const seed = new TextEncoder().encode(Deno.readTextFileSync(dir("good") + "comma_header.csv"));
+    const jcamp = new TextEncoder().encode(Deno.readTextFileSync(dir("good") + "stone.jdx"));
+    const mutate = (base: Uint8Array) =>
+      fc.array(fc.tuple(fc.nat(base.length - 1), fc.integer({ min: 0, max: 255 })), {
+        maxLength: 8,
+      }).map((edits) => {
+        const copy = base.slice();
+        for (const [at, byte] of edits) copy[at] = byte;
+        return copy;
+      });
     fc.assert(
       fc.property(
         fc.oneof(
           fc.uint8Array({ maxLength: 400 }),
-          fc.array(fc.tuple(fc.nat(seed.length - 1), fc.integer({ min: 0, max: 255 })), {
-            maxLength: 8,
-          })
-            .map((edits) => {
-              const copy = seed.slice();
-              for (const [at, byte] of edits) copy[at] = byte;
-              return copy;
-            }),
+          mutate(seed),
+          mutate(jcamp),
           fc.string({ maxLength: 300 }).map((s) => new TextEncoder().encode(s)),
         ),
         (bytes) => {
