@@ -28,7 +28,7 @@ import {
   type ReportRow,
   reportRow,
 } from "../report/report_data.ts";
-import { renderReport } from "../report/render_report.ts";
+import { renderReport, ROW_LIMIT } from "../report/render_report.ts";
 import { readSpectrumFile } from "../io/read_file.ts";
 import { transmittanceForPath } from "../optics/path_transmittance.ts";
 import { spectrumColour } from "../cie/spectrum_colour.ts";
@@ -295,6 +295,7 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
     htmlPath = `${outDir}/index.html`;
   const reportRows: ReportRow[] = [];
   const placed: Record<string, { sample: string; x: number; y: number }[]> = {};
+  let targeted = 0, passed = 0;
   const details: Record<number, ReportDetail> = {};
   const detailLimit = options.detailLimit ?? 2000;
   let samples = 0;
@@ -309,7 +310,12 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
         yield `${first ? "" : ","}\n${JSON.stringify(result)}`;
         first = false;
         const index = samples++;
-        reportRows.push(reportRow(result, index));
+        // only the rows the page shows are kept, so memory stays flat in large batches
+        if (index < ROW_LIMIT) reportRows.push(reportRow(result, index));
+        if (result.target) {
+          targeted++;
+          if (result.target.pass) passed++;
+        }
         if (result.dopant && (placed[result.dopant.calibration] ??= []).length < 5000) {
           placed[result.dopant.calibration]!.push({
             sample: result.sample,
@@ -355,6 +361,7 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
         : "Beer–Lambert only",
     },
     rows: reportRows,
+    totals: { samples, targeted, passed },
     details,
     detailLimit,
     errors: errors.map(({ file, message }) => ({ file, message })),

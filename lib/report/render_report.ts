@@ -71,8 +71,13 @@ export function renderReport(input: ReportInput, chartJs: string): string {
   const settings = Object.entries(input.settingsSummary).map(([k, v]) => `${e(k)}: ${e(v)}`).join(
     " · ",
   );
-  const passed = input.rows.filter((r) => r.target?.pass).length;
-  const targeted = input.rows.filter((r) => r.target).length;
+  const totals = input.totals ?? {
+    samples: input.rows.length,
+    targeted: input.rows.filter((r) => r.target).length,
+    passed: input.rows.filter((r) => r.target?.pass).length,
+  };
+  const { passed, targeted } = totals;
+  const count = totals.samples;
   const calibrations = input.calibrations ?? [];
   const data = {
     rows: input.rows.slice(0, ROW_LIMIT),
@@ -80,19 +85,19 @@ export function renderReport(input: ReportInput, chartJs: string): string {
     locus: input.locus,
     calibrations,
   };
-  const limited = input.rows.length > Object.keys(input.details).length;
+  const limited = count > Object.keys(input.details).length;
   return `<!doctype html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; img-src data:">
-<title>crystint colour report — ${input.rows.length} samples</title>
+<title>crystint colour report — ${count} samples</title>
 <style>${REPORT_CSS}</style>
 </head>
 <body>
 <header class="lot">
-<h1>Colour report · ${input.rows.length} sample${input.rows.length === 1 ? "" : "s"}</h1>
+<h1>Colour report · ${count} sample${count === 1 ? "" : "s"}</h1>
 <div class="meta">crystint ${e(input.version)} · ${settings}${
     targeted ? ` · target met by ${passed} of ${targeted}` : ""
   }${input.errors.length ? ` · ${input.errors.length} file(s) not processed` : ""}</div>
@@ -122,8 +127,8 @@ ${input.rows.slice(0, ROW_LIMIT).map((r) => row(r, r.index in input.details)).jo
 </tbody>
 </table>
 ${
-    input.rows.length > ROW_LIMIT
-      ? `<p>The table shows the first ${ROW_LIMIT} of ${input.rows.length} samples; results.csv and results.json hold all of them.</p>`
+    count > ROW_LIMIT
+      ? `<p>The table shows the first ${ROW_LIMIT} of ${count} samples; results.csv and results.json hold all of them.</p>`
       : ""
   }
 ${

@@ -87,6 +87,11 @@ export interface ReportInput {
   locus: { nm: number[]; x: number[]; y: number[] };
   /** Calibrations used, with their standards and the samples placed on them. */
   calibrations?: ReportCalibration[];
+  /**
+   * Counts over all samples, when `rows` holds only the first of them (large batches keep
+   * at most the rows the page shows); default: counted from `rows`.
+   */
+  totals?: { samples: number; targeted: number; passed: number };
 }
 
 /** A calibration line for the report's calibration plot. */
