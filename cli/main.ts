@@ -13,6 +13,7 @@ import { predictCommand } from "./predict.ts";
 import { aimCommand } from "./aim.ts";
 import { segregationCommand } from "./segregation.ts";
 import { metamerismCommand, pleochroismCommand } from "./pleochroism.ts";
+import { seriesCommand } from "./series.ts";
 import { EXIT, log, UsageError } from "./_shared.ts";
 
 const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
@@ -23,6 +24,7 @@ Usage:
 Commands:
   color     CIE colour (XYZ, xy, L*a*b*, LCh, swatches) of spectra under chosen illuminants
   change    colour change between two illuminants (ΔE00, ΔL*, ΔC*, Δh)
+  series    colour against path length: maximum chroma, path to a target L*
   pleochroism  colours of an o/e pair, unpolarised colour, ΔE00 between o and e
   metamerism   CIE special metamerism index of two specimens for a change of illuminant
   bands     detect and fit absorption bands in wavenumber, with assignment hints
@@ -49,6 +51,7 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   segregation: segregationCommand,
   pleochroism: pleochroismCommand,
   metamerism: metamerismCommand,
+  series: seriesCommand,
 };
 
 /** Runs crystint with the given arguments and returns the exit code. */

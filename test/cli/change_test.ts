@@ -100,3 +100,32 @@ describe("crystint pleochroism and metamerism", () => {
     expect(r.code).toBe(0);
   });
 });
+
+describe("crystint series", () => {
+  it("--json gives the points, the path of maximum chroma and the path to a target L*", async () => {
+    const r = await run(
+      "series",
+      fixture("colour/cr_corundum_1nm.csv"),
+      "--thickness",
+      "2",
+      "--from",
+      "1",
+      "--to",
+      "20",
+      "--steps",
+      "19",
+      "--target-l",
+      "50",
+      "--json",
+    );
+    expect(r.code).toBe(0);
+    const [s] = JSON.parse(r.stdout);
+    expect(s.points.length).toBe(20);
+    expect(s.points[0].pathMm).toBe(1);
+    expect(s.maxChromaPathMm).toBeGreaterThan(1);
+    expect(s.targetLightnessPathMm).toBeGreaterThan(1);
+    expect(
+      (await run("series", fixture("colour/cr_corundum_1nm.csv"), "--from", "5", "--to", "2")).code,
+    ).toBe(1);
+  });
+});
