@@ -7,6 +7,7 @@
  */
 import { savitzkyGolay, savitzkyGolayWeights } from "./savitzky_golay.ts";
 import { FWHM_PER_SIGMA } from "./band_model.ts";
+import { resampleLinear } from "../spectrum/linear_resample.ts";
 
 /** A band candidate with rough starting values for the fit. */
 export interface BandCandidate {
@@ -56,23 +57,15 @@ export function uniformResample(
 ): { x: Float64Array; y: Float64Array; step: number } {
   const n = x.length;
   const step = (x[n - 1]! - x[0]!) / (n - 1);
-  const ux = new Float64Array(n), uy = new Float64Array(n);
-  let j = 0;
-  for (let i = 0; i < n; i++) {
-    const xi = x[0]! + i * step;
-    while (j < n - 2 && x[j + 1]! < xi) j++;
-    const f = (xi - x[j]!) / (x[j + 1]! - x[j]!);
-    ux[i] = xi;
-    uy[i] = y[j]! * (1 - f) + y[j + 1]! * f;
-  }
-  return { x: ux, y: uy, step };
+  const ux = Float64Array.from({ length: n }, (_, i) => x[0]! + i * step);
+  return { x: ux, y: resampleLinear(x, y, ux), step };
 }
 
 /** Options of {@linkcode detectBands}. */
 export interface DetectOptions {
-  /** Second-derivative depth, in noise units, that makes a candidate (default 5). */
+  /** Second-derivative depth, in noise units, that makes a candidate (default 5; common practice). */
   threshold?: number;
-  /** Smallest band height, in noise units of the data (default 5). */
+  /** Smallest band height, in noise units of the data (default 5; common practice). */
   minHeightSigma?: number;
   /** Window half-widths to try, cm⁻¹ (default 40, 150, 500, 1200). */
   scalesCm1?: number[];

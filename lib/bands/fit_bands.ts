@@ -247,7 +247,7 @@ function fitOnce(
   };
 }
 
-/** Detected bands whose fitted height is below this many standard errors are dropped and the fit redone. */
+/** Detected bands whose fitted height is below this many standard errors are dropped and the fit redone (common practice). */
 export const MIN_BAND_SIGNIFICANCE = 3;
 
 /**

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { parse } from "csv-parse/sync";
+import { parseSheet } from "../io/parse_sheet.ts";
 import { SettingsError } from "./settings.ts";
 
 /** One manifest row with the columns crystint knows, the rest kept in `extra`. */
@@ -63,14 +63,7 @@ function key(header: string): string {
 export function parseManifest(text: string, file: string): ManifestRow[] {
   let records: string[][];
   try {
-    records = parse(text, {
-      bom: true,
-      trim: true,
-      skip_empty_lines: true,
-      relax_column_count: true,
-      comment: "#",
-      comment_no_infix: true,
-    });
+    records = parseSheet(text);
   } catch (e) {
     throw new SettingsError(`Cannot read manifest ${file}: ${(e as Error).message}`);
   }

@@ -13,7 +13,6 @@ import { parseSellmeier } from "../optics/refractive_index.ts";
 import { type ColourRow, spectrumColour } from "../cie/spectrum_colour.ts";
 import { type ColourChange, colourChange } from "../cie/colour_change.ts";
 import { type ThicknessSeries, thicknessSeries } from "../cie/thickness_series.ts";
-import { swatchFromXyz } from "../cie/swatch.ts";
 import { checkTarget, type TargetCheck } from "../dopant/target.ts";
 import type { BatchSettings, TargetSetting } from "./settings.ts";
 import { type BandFit, fitSpectrumBands } from "../bands/fit_bands.ts";
@@ -199,13 +198,16 @@ function resultFor(
     s.change.observer,
     s.change.adapt,
   );
+  // the swatches of the change: from the colour rows when they hold that pair already
   const swatch = (illuminant: string) => {
-    const row = spectrumColour(spectrum, {
-      illuminants: [illuminant],
-      observers: [s.change.observer],
-      transmittance: t,
-    })[0]!;
-    return swatchFromXyz(row, { X: row.whiteX, Y: row.whiteY, Z: row.whiteZ }).srgb.css;
+    const row =
+      colour.find((r) => r.illuminant === illuminant && r.observer === s.change.observer) ??
+        spectrumColour(spectrum, {
+          illuminants: [illuminant],
+          observers: [s.change.observer],
+          transmittance: t,
+        })[0]!;
+    return row.srgb;
   };
   let series: ThicknessSeries | null = null;
   if (spectrum.thicknessMm !== undefined || spectrum.quantity === "alpha") {

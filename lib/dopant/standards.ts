@@ -5,7 +5,7 @@
  *
  * @module
  */
-import { parse } from "csv-parse/sync";
+import { parseSheet } from "../io/parse_sheet.ts";
 import { InputError } from "../io/input_error.ts";
 
 /** One row of the standards table. */
@@ -29,14 +29,7 @@ export interface StandardRow {
 export function parseStandards(text: string, file: string): StandardRow[] {
   let records: string[][];
   try {
-    records = parse(text, {
-      bom: true,
-      trim: true,
-      skip_empty_lines: true,
-      relax_column_count: true,
-      comment: "#",
-      comment_no_infix: true,
-    });
+    records = parseSheet(text);
   } catch (e) {
     throw new InputError(
       "malformed",

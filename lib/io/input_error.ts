@@ -18,7 +18,6 @@ export type InputProblem =
   | "out-of-range"
   | "ambiguous-ordinate"
   | "ambiguous-axis"
-  | "missing-thickness"
   | "unreadable";
 
 /** A problem with one input file, located to a line where possible. */

@@ -10,3 +10,4 @@ export * from "./read_table.ts";
 export * from "./read_spectra.ts";
 export * from "./read_jcamp.ts";
 export * from "./read_file.ts";
+export * from "./parse_sheet.ts";

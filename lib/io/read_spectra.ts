@@ -27,7 +27,7 @@ export interface ReadOptions {
   thicknessMm?: number;
 }
 
-/** The least number of points a spectrum must have. */
+/** The least number of points a spectrum must have (our choice: fewer cannot carry a band or an interpolation). */
 export const MIN_POINTS = 5;
 /** Transmittance noise tolerated below 0 and above 1 before a value counts as wrong (common practice). */
 export const T_NOISE = 0.02;

@@ -1,0 +1,23 @@
+/**
+ * Reads a small CSV sheet (sample sheet, standards table) into rows of trimmed cells, with a
+ * BOM, blank lines, `#` comment lines and ragged rows allowed (csv-parse underneath).
+ *
+ * @module
+ */
+import { parse } from "csv-parse/sync";
+
+/**
+ * Rows of cells of a CSV sheet.
+ *
+ * @throws {Error} csv-parse's error for text that is not CSV (callers wrap it with the file).
+ */
+export function parseSheet(text: string): string[][] {
+  return parse(text, {
+    bom: true,
+    trim: true,
+    skip_empty_lines: true,
+    relax_column_count: true,
+    comment: "#",
+    comment_no_infix: true,
+  });
+}
