@@ -5,7 +5,7 @@
  *
  * @module
  */
-import { savitzkyGolay, savitzkyGolayWeights } from "./savitzky_golay.ts";
+import { savitzkyGolay, savitzkyGolayWeights } from "../numeric/savitzky_golay.ts";
 import { FWHM_PER_SIGMA } from "./band_model.ts";
 import { resampleLinear } from "../spectrum/linear_resample.ts";
 

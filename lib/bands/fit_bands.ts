@@ -21,7 +21,7 @@ import {
   localNoise,
   uniformResample,
 } from "./detect_bands.ts";
-import { levenbergMarquardt } from "./levenberg_marquardt.ts";
+import { levenbergMarquardt } from "../numeric/levenberg_marquardt.ts";
 
 /** One fitted band with 1σ standard errors. */
 export interface FittedBand {

@@ -3,9 +3,7 @@
  *
  * @module
  */
-export * from "./savitzky_golay.ts";
 export * from "./band_model.ts";
-export * from "./levenberg_marquardt.ts";
 export * from "./detect_bands.ts";
 export * from "./fit_bands.ts";
 export * from "./assign_bands.ts";

@@ -11,7 +11,7 @@ import { deltaE2000 } from "../cie/delta_e.ts";
 import { type Lab, xyzToLab } from "../cie/spaces.ts";
 import { tristimulusWeights, weightedXyz } from "../cie/tristimulus.ts";
 import { slabTransmittance } from "../optics/slab.ts";
-import { nelderMead } from "./nelder_mead.ts";
+import { nelderMead } from "../numeric/nelder_mead.ts";
 
 /** One dopant: α in cm⁻¹ per unit level on the problem's grid. */
 export interface DopantSpectrum {

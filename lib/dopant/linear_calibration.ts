@@ -8,7 +8,7 @@
  *
  * @module
  */
-import { studentTQuantile } from "./student_t.ts";
+import { studentTQuantile } from "../numeric/student_t.ts";
 
 /** One standard: concentration x (with optional σ) and response y (with optional σ). */
 export interface CalibrationPoint {

@@ -5,11 +5,9 @@
  * @module
  */
 export * from "./target.ts";
-export * from "./student_t.ts";
 export * from "./linear_calibration.ts";
 export * from "./response_metric.ts";
 export * from "./standards.ts";
 export * from "./smakula_dexter.ts";
 export * from "./scheil.ts";
-export * from "./nelder_mead.ts";
 export * from "./aim_doping.ts";

@@ -6,7 +6,7 @@
  *
  * @module
  */
-import { levenbergMarquardt } from "../bands/levenberg_marquardt.ts";
+import { levenbergMarquardt } from "../numeric/levenberg_marquardt.ts";
 
 /** One measurement along the boule. */
 export interface SegregationPoint {

@@ -7,6 +7,7 @@ export * from "./input_error.ts";
 export * from "./decode_text.ts";
 export * from "./header_units.ts";
 export * from "./read_table.ts";
+export * from "./spectra_from_table.ts";
 export * from "./read_spectra.ts";
 export * from "./read_jcamp.ts";
 export * from "./read_file.ts";

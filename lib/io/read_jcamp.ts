@@ -7,8 +7,8 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { InputError } from "./input_error.ts";
-import type { ReadOptions } from "./read_spectra.ts";
-import { spectraFromTable } from "./read_spectra.ts";
+import type { ReadOptions } from "./spectra_from_table.ts";
+import { spectraFromTable } from "./spectra_from_table.ts";
 import type { TextTable } from "./read_table.ts";
 import type { OrdinateKind } from "./header_units.ts";
 import type { AxisUnit } from "../spectrum/axis.ts";

@@ -1,0 +1,9 @@
+/**
+ * Numerical building blocks: least squares, simplex minimisation, Student t, smoothing.
+ *
+ * @module
+ */
+export * from "./levenberg_marquardt.ts";
+export * from "./nelder_mead.ts";
+export * from "./student_t.ts";
+export * from "./savitzky_golay.ts";
