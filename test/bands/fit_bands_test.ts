@@ -5,11 +5,10 @@ import {
   BAND_CATALOGUE,
   bandArea,
   fitBandsCm1,
-  levenbergMarquardt,
-  savitzkyGolayWeights,
   taucGap,
   urbachEnergy,
 } from "../../lib/bands/mod.ts";
+import { levenbergMarquardt, savitzkyGolayWeights } from "../../lib/numeric/mod.ts";
 import { seededNormal } from "../_random.ts";
 
 type Band = [centre: number, fwhm: number, height: number];

@@ -12,8 +12,8 @@ import {
   scheilRatio,
   SMAKULA_K_INTEGRAL,
   smakulaDexter,
-  studentTQuantile,
 } from "../../lib/dopant/mod.ts";
+import { studentTQuantile } from "../../lib/numeric/mod.ts";
 import { seededNormal } from "../_random.ts";
 
 // Miller & Miller, Statistics and Chemometrics for Analytical Chemistry, worked example of a
