@@ -6,7 +6,7 @@
 import cliProgress from "cli-progress";
 import process from "node:process";
 import { runBatch } from "../lib/batch/run_batch.ts";
-import { SettingsError } from "../lib/batch/settings.ts";
+import { SettingsError } from "../lib/batch/settings_schema.ts";
 import { EXIT, log, parseCommandArgs, positiveNumber, UsageError } from "./_shared.ts";
 
 export const BATCH_HELP = `crystint batch — process a whole set of exports and write a report

@@ -4,7 +4,7 @@
  * @module
  */
 import { reportFromResults } from "../lib/batch/report_from_results.ts";
-import { SettingsError } from "../lib/batch/settings.ts";
+import { SettingsError } from "../lib/batch/settings_schema.ts";
 import { EXIT, parseCommandArgs, UsageError } from "./_shared.ts";
 
 export const REPORT_HELP = `crystint report — re-render the HTML report from results.json

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import type { SampleResult } from "../batch/sample_result.ts";
+import type { SampleResult } from "../analysis/sample_result.ts";
 import { spectralLocus } from "../cie/dominant_wavelength.ts";
 
 /** One line of the summary table. */

@@ -1,40 +1,26 @@
 /**
- * Batch settings: defaults, a settings file in JSON or YAML, validation with clear messages.
+ * Batch settings: the schema (types, defaults, bounds) and its validation with clear messages.
  *
  * @module
  */
-import { parse as parseYaml } from "yaml";
 import { getIlluminant } from "../cie/illuminants.ts";
 import { getObserver } from "../cie/observers.ts";
 import { getHost, parseSellmeier } from "../optics/refractive_index.ts";
 import { axisFromText, ordinateFromText } from "../io/header_units.ts";
+import type {
+  ChangeSetting,
+  SeriesSetting,
+  TargetColor,
+  TargetSetting,
+} from "../analysis/sample_settings.ts";
 
-/** A target colour under one illuminant. */
-export interface TargetColour {
-  L: number;
-  a: number;
-  b: number;
-  illuminant: string;
-}
-
-/** A target colour with its tolerance: under one illuminant, or several (e.g. D65 and A). */
-export interface TargetSetting extends TargetColour {
-  observer: string;
-  /** Pass when ΔE00 ≤ this under every illuminant (common practice, not a standard). */
-  toleranceDE00: number;
-  /** The same target under further illuminants. */
-  also: TargetColour[];
-  /** A reference spectrum the target colours are taken from (resolved before the run). */
-  spectrum?: string;
-  /** Path for the reference spectrum's colour, mm (default: as measured). */
-  spectrumPathMm?: number;
-}
+export type { TargetColor, TargetSetting };
 
 /** Everything a batch run is configured by. */
 export interface BatchSettings {
   illuminants: string[];
   observers: string[];
-  change: { from: string; to: string; observer: string; adapt: "none" | "cat16" | "bradford" };
+  change: ChangeSetting;
   /** Default path length for the finished stone, mm (a manifest column overrides it). */
   pathMm?: number;
   /** Default measured thickness, mm, when neither file nor manifest says. */
@@ -51,7 +37,7 @@ export interface BatchSettings {
   /** Named targets the manifest's `target` column may refer to. */
   targets: Record<string, TargetSetting>;
   /** Thickness series range; `targetL` asks for the path that reaches that L*. */
-  series: { fromMm: number; toMm: number; steps: number; targetL?: number };
+  series: SeriesSetting;
   /** Hue difference (degrees) from which a D65→A change is called marked (common practice). */
   changeHueThresholdDeg: number;
   /** Smallest C*ab (under both lights) for a change to be called marked (common practice). */
@@ -110,7 +96,7 @@ function target(v: unknown, where: string): TargetSetting {
     ? 2
     : num(o.toleranceDE00, `${where}.toleranceDE00`, true);
   check(() => getObserver(observer), `${where}.observer`);
-  const lab = (x: unknown, at: string, illuminant: string): TargetColour => {
+  const lab = (x: unknown, at: string, illuminant: string): TargetColor => {
     check(() => getIlluminant(illuminant), `${at}`);
     if (Array.isArray(x) && x.length === 3) {
       return {
@@ -123,7 +109,7 @@ function target(v: unknown, where: string): TargetSetting {
     const r = (x ?? {}) as Record<string, unknown>;
     return { L: num(r.L, `${at}.L`), a: num(r.a, `${at}.a`), b: num(r.b, `${at}.b`), illuminant };
   };
-  let colours: TargetColour[];
+  let colours: TargetColor[];
   const t: Partial<TargetSetting> = {};
   if (o.spectrum !== undefined) {
     const ills = o.illuminants === undefined
@@ -285,43 +271,4 @@ export function resolveSettings(raw: unknown): BatchSettings {
     s.changeHueThresholdDeg = num(o.changeHueThresholdDeg, "changeHueThresholdDeg", true);
   }
   return s;
-}
-
-/**
- * Reads a settings file (`.json`, `.yaml` or `.yml`).
- *
- * @throws {SettingsError} When the file cannot be read or parsed, or a value is wrong.
- */
-export async function readSettingsFile(path: string): Promise<BatchSettings> {
-  let text: string;
-  try {
-    text = await Deno.readTextFile(path);
-  } catch (e) {
-    throw new SettingsError(`Cannot read settings file ${path}: ${(e as Error).message}`);
-  }
-  let raw: unknown;
-  try {
-    raw = /\.json$/i.test(path) ? JSON.parse(text) : parseYaml(text);
-  } catch (e) {
-    throw new SettingsError(`Cannot parse settings file ${path}: ${(e as Error).message}`);
-  }
-  let settings: BatchSettings;
-  try {
-    settings = resolveSettings(raw);
-  } catch (e) {
-    throw new SettingsError(`${path}: ${(e as Error).message}`);
-  }
-  // calibration paths are relative to the settings file
-  const dir = path.replace(/[^/\\]*$/, "");
-  const rel = (p: string) => (/^([a-zA-Z]:)?[\\/]/.test(p) ? p : `${dir}${p}`);
-  if (settings.calibration) settings.calibration = rel(settings.calibration);
-  for (
-    const t of [...(settings.target ? [settings.target] : []), ...Object.values(settings.targets)]
-  ) {
-    if (t.spectrum) t.spectrum = rel(t.spectrum);
-  }
-  for (const k of Object.keys(settings.calibrations)) {
-    settings.calibrations[k] = rel(settings.calibrations[k]!);
-  }
-  return settings;
 }
