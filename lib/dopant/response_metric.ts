@@ -27,7 +27,9 @@ export interface MetricOptions {
 
 /** A response with its standard error. */
 export interface Response {
+  /** The response. */
   value: number;
+  /** Its standard error. */
   sigma: number;
 }
 
