@@ -4,6 +4,7 @@
  *
  * @module
  */
+import { roundTo } from "../numeric/round.ts";
 import { wavenumberToNm } from "../spectrum/axis.ts";
 
 /** Most points a stored curve keeps (our choice: enough for any chart, small results). */
@@ -11,8 +12,6 @@ export const CURVE_POINTS = 300;
 
 /** Decimals kept in stored curves: wavelength (nm) and ordinate values. */
 const NM_DECIMALS = 2, VALUE_DECIMALS = 5;
-
-const fixed = (v: number, d: number) => Number(v.toFixed(d));
 
 /** Indices of every k-th point so that at most `max` remain. */
 function stride(length: number, max: number): number {
@@ -28,8 +27,8 @@ export function thinTransmittance(
   const step = stride(nm.length, max);
   const outNm: number[] = [], outT: number[] = [];
   for (let i = 0; i < nm.length; i += step) {
-    outNm.push(fixed(nm[i]!, NM_DECIMALS));
-    outT.push(fixed(t[i]!, VALUE_DECIMALS));
+    outNm.push(roundTo(nm[i]!, NM_DECIMALS));
+    outT.push(roundTo(t[i]!, VALUE_DECIMALS));
   }
   return { nm: outNm, t: outT };
 }
@@ -44,9 +43,9 @@ export function thinBandCurve(
   const step = stride(cm1.length, max);
   const nm: number[] = [], d: number[] = [], m: number[] = [];
   for (let i = 0; i < cm1.length; i += step) {
-    nm.push(fixed(wavenumberToNm(cm1[i]!), NM_DECIMALS));
-    d.push(fixed(data[i]!, VALUE_DECIMALS));
-    m.push(fixed(model[i]!, VALUE_DECIMALS));
+    nm.push(roundTo(wavenumberToNm(cm1[i]!), NM_DECIMALS));
+    d.push(roundTo(data[i]!, VALUE_DECIMALS));
+    m.push(roundTo(model[i]!, VALUE_DECIMALS));
   }
   return { nm, data: d, model: m };
 }

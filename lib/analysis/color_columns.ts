@@ -4,6 +4,7 @@
  *
  * @module
  */
+import { roundTo } from "../numeric/round.ts";
 import type { ColourRow } from "../cie/spectrum_colour.ts";
 
 /** A column of a colour table: the row key, its CSV header, decimals kept in CSV. */
@@ -63,7 +64,7 @@ export function csvCell(value: unknown, decimals?: number): string | number {
   if (typeof value === "boolean") return value ? "true" : "false";
   if (typeof value === "number") {
     if (!Number.isFinite(value)) return "";
-    return decimals === undefined ? value : Number(value.toFixed(decimals));
+    return decimals === undefined ? value : roundTo(value, decimals);
   }
   return spreadsheetSafe(String(value));
 }

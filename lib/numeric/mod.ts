@@ -7,3 +7,4 @@ export * from "./levenberg_marquardt.ts";
 export * from "./nelder_mead.ts";
 export * from "./student_t.ts";
 export * from "./savitzky_golay.ts";
+export * from "./round.ts";

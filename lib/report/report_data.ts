@@ -5,6 +5,8 @@
  * @module
  */
 import type { SampleResult } from "../analysis/sample_result.ts";
+import type { CalibrationSummary } from "../analysis/results_document.ts";
+import { roundTo } from "../numeric/round.ts";
 import { spectralLocus } from "../cie/dominant_wavelength.ts";
 
 /** One line of the summary table. */
@@ -95,22 +97,12 @@ export interface ReportInput {
 }
 
 /** A calibration line for the report's calibration plot. */
-export interface ReportCalibration {
-  name: string;
-  unit: string;
-  metric: string;
-  slope: number;
-  intercept: number;
-  r2: number;
-  lod: number;
-  standards: { sample: string; x: number; y: number }[];
+export interface ReportCalibration extends CalibrationSummary {
+  /** The samples placed on the line: their estimate and response. */
   samples: { sample: string; x: number; y: number }[];
 }
 
-const r = (
-  v: number | null,
-  d = 2,
-): number => (typeof v === "number" && Number.isFinite(v) ? Number(v.toFixed(d)) : NaN);
+const r = (v: number | null, d = 2): number => (typeof v === "number" ? roundTo(v, d) : NaN);
 
 const precision = (v: number | null, digits: number) =>
   typeof v === "number" && Number.isFinite(v) ? v.toPrecision(digits) : "?";

@@ -1,30 +1,11 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
-import { ROOT, runCli } from "../_run_cli.ts";
+import { runCli, runDemoBatch } from "../_run_cli.ts";
 
 describe("crystint report reproduces the batch page", () => {
   it("byte for byte, header, calibrations, totals and errors included (demo lot)", async () => {
     const out = await Deno.makeTempDir(), again = await Deno.makeTempDir();
-    // the demo settings take the calibration from reports/demo, as `deno task demo` makes it
-    await Deno.mkdir(`${ROOT}reports/demo`, { recursive: true });
-    const cal = await runCli(
-      "calibrate",
-      `${ROOT}spectra/standards/standards.csv`,
-      "--out",
-      `${ROOT}reports/demo/cr-calibration.json`,
-    );
-    expect(cal.code).toBe(0);
-    const batch = await runCli(
-      "batch",
-      `${ROOT}spectra/demo`,
-      "--manifest",
-      `${ROOT}spectra/demo/manifest.csv`,
-      "--settings",
-      `${ROOT}spectra/demo/settings.yaml`,
-      "--out",
-      out,
-      "--quiet",
-    );
+    const batch = await runDemoBatch(out);
     expect(batch.code).toBe(2); // the demo holds deliberately damaged files
     const r = await runCli("report", `${out}/results.json`, "--out", again);
     expect(r.code).toBe(0);
