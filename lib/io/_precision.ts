@@ -32,12 +32,18 @@ export function decimalExponent(values: ArrayLike<number>, maxSignificantDigits:
   return finest;
 }
 
-/** A value written with the precision 10^exponent (no exponent notation, no "-0"). */
+/**
+ * A value written with the precision 10^exponent (no exponent notation, no "-0"), rounded
+ * exactly as the JCAMP-DX integers are, so CSV and JCAMP-DX outputs hold the same digits.
+ */
 export function formatFixed(value: number, exponent: number): string {
-  const text = exponent < 0
-    ? value.toFixed(-exponent)
-    : String(Math.round(toUnits(value, exponent)) * 10 ** exponent);
-  return Number(text) === 0 ? text.replace(/^-/, "") : text;
+  const units = Math.round(toUnits(value, exponent));
+  if (units === 0) return exponent < 0 ? `0.${"0".repeat(-exponent)}` : "0";
+  const digits = String(Math.abs(units));
+  const sign = units < 0 ? "-" : "";
+  if (exponent >= 0) return `${sign}${digits}${"0".repeat(exponent)}`;
+  const padded = digits.padStart(-exponent + 1, "0");
+  return `${sign}${padded.slice(0, exponent)}.${padded.slice(exponent)}`;
 }
 
 /** 10^exponent as a plain decimal string ("0.0001", "1", "100"). */
