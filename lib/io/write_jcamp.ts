@@ -1,9 +1,11 @@
 /**
- * Writer for JCAMP-DX 4.24 spectra (McDonald & Wilks, Appl. Spectrosc. 42, 151 (1988); label
- * and line rules as kept by the IUPAC revision JCAMP-DX 5.01, Lampen et al., Pure Appl. Chem.
- * 71, 1549 (1999)): `##XYDATA=(X++(Y..Y))` in AFFN or DIFDUP with Y-check values, or
- * `##XYPOINTS=(XY..XY)` when the x axis is not evenly spaced; XFACTOR / YFACTOR chosen so the
- * integers keep the precision of the data (at most the requested significant digits).
+ * Writer for JCAMP-DX 4.24 spectra (McDonald & Wilks, Appl. Spectrosc. 42(1), 151–162 (1988),
+ * §5.2 compression, §5.3 AFFN, Table VII pseudo-digits; label and line rules as kept by the IUPAC
+ * revision JCAMP-DX 5.01, Lampen et al., Pure Appl. Chem. 71, 1549 (1999) — that citation and
+ * the 80-character line limit from memory): `##XYDATA=(X++(Y..Y))` in AFFN or DIFDUP with
+ * Y-check values, or `##XYPOINTS=(XY..XY)` when the x axis is not evenly spaced; XFACTOR /
+ * YFACTOR chosen so the integers keep the precision of the data (at most the requested
+ * significant digits).
  *
  * @module
  */

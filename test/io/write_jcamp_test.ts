@@ -235,3 +235,24 @@ describe("jcampconverter (npm, independent general-purpose JCAMP-DX parser) read
     }
   });
 });
+
+describe("readJcamp() on valid compressed lines", () => {
+  it("an SQZ E or e right after the abscissa is the pseudo-digit ±5, not an exponent", () => {
+    // McDonald & Wilks 1988 §5.3: E is an exponent only when a sign and digits follow; J5 = DIF +15
+    expect(decodeAsdfLine("400E123J5", "x.jdx", 1).values).toEqual([400, 5123, 5138]);
+    expect(decodeAsdfLine("400e12", "x.jdx", 1).values).toEqual([400, -512]);
+    expect(decodeAsdfLine("1.5E+02 3", "x.jdx", 1).values).toEqual([150, 3]);
+  });
+  it("µm and eV axes read back to the same wavelengths", () => {
+    const s = messySlab();
+    for (const axis of ["um", "ev"] as const) {
+      const grid = axis === "um"
+        ? { start: 0.4, stop: 1.0, step: 0.002, axis }
+        : { start: 1.5, stop: 3.5, step: 0.005, axis };
+      const { spectrum } = convertSpectrum(s, { grid });
+      const back = readJcamp(writeJcamp(spectrum, { axis }), "u.jdx")[0]!;
+      expect(back.values.length).toBe(spectrum.values.length);
+      back.wavelengthNm.forEach((nm, i) => expect(nm).toBeCloseTo(spectrum.wavelengthNm[i]!, 6));
+    }
+  });
+});
