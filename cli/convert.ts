@@ -191,6 +191,11 @@ function outputText(spectrum: Spectrum, input: string, plan: Plan): string {
     spectrum,
     plan.grid ? { quantity, grid: plan.grid } : { quantity },
   );
+  if (plan.alphaBase !== "e" && converted.spectrum.quantity !== "alpha") {
+    throw new RangeError(
+      `Cannot write "${spectrum.meta.sample}" with --alpha-base ${plan.alphaBase}: it holds ${converted.spectrum.quantity} (give --ordinate alpha)`,
+    );
+  }
   const records: Record<string, string> = {
     "Source file": baseName(input),
     "Converted by": `crystint ${VERSION}`,

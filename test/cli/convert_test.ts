@@ -254,6 +254,22 @@ describe("crystint convert", () => {
     expect(back!.values[10]! / (-Math.log10(t!.values[10]!) / 0.2 * Math.LN10)).toBeCloseTo(1, 4);
   });
 
+  it("--alpha-base on a spectrum that stays a transmittance fails that input (exit 2)", async () => {
+    const dir = await tempDir();
+    const r = await runCli(
+      "convert",
+      fixture("colour/cr_corundum_5nm.csv"),
+      "--to",
+      "csv",
+      "--alpha-base",
+      "10",
+      "--out",
+      `${dir}/t.csv`,
+    );
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/--ordinate alpha/);
+  });
+
   it("usage errors exit 1", async () => {
     const src = fixture("colour/cr_corundum_5nm.csv");
     for (
