@@ -14,6 +14,7 @@ import { aimCommand } from "./aim.ts";
 import { segregationCommand } from "./segregation.ts";
 import { metamerismCommand, pleochroismCommand } from "./pleochroism.ts";
 import { seriesCommand } from "./series.ts";
+import { convertCommand } from "./convert.ts";
 import { EXIT, log, UsageError } from "./_shared.ts";
 
 const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
@@ -52,6 +53,7 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   pleochroism: pleochroismCommand,
   metamerism: metamerismCommand,
   series: seriesCommand,
+  convert: convertCommand,
 };
 
 /** Runs crystint with the given arguments and returns the exit code. */

@@ -1,5 +1,6 @@
 /**
- * The analysis of one sample from its spectrum and settings, and the results contract.
+ * The analysis of one sample from its spectrum and settings, the results contract, and
+ * whole-spectrum conversion (ordinate, axis, grid).
  *
  * @module
  */
@@ -7,3 +8,5 @@ export * from "./sample_settings.ts";
 export * from "./sample_result.ts";
 export * from "./results_document.ts";
 export * from "./analyse_sample.ts";
+export * from "./color_columns.ts";
+export * from "./convert_spectrum.ts";
