@@ -12,6 +12,7 @@ import {
   type Response,
   responseFromBands,
   type ResponseMetric,
+  spectrumMetric,
   spectrumResponse,
 } from "../dopant/response_metric.ts";
 import type { SampleSettings } from "./sample_settings.ts";
@@ -52,7 +53,7 @@ export function dopantStep(
     const r = response(
       spectrum,
       fit,
-      cal.metric as ResponseMetric,
+      spectrumMetric(cal.metric),
       (cal.metricOptions ?? {}) as MetricOptions,
     );
     const p = predictConcentration(cal, r.value, r.sigma);

@@ -15,6 +15,23 @@ import { NeedsValueError } from "../spectrum/needs_value_error.ts";
 /** The metrics. */
 export type ResponseMetric = "band-area" | "band-height" | "alpha-at";
 
+/** The metrics a spectrum can be measured by. */
+export const RESPONSE_METRICS: readonly ResponseMetric[] = ["band-area", "band-height", "alpha-at"];
+
+/**
+ * Checks that a calibration's metric can be measured on a spectrum.
+ *
+ * @throws {RangeError} For a calibration made from ready response values of an unnamed metric.
+ */
+export function spectrumMetric(metric: string): ResponseMetric {
+  if ((RESPONSE_METRICS as readonly string[]).includes(metric)) return metric as ResponseMetric;
+  throw new RangeError(
+    `The calibration's response is "${metric}", which cannot be measured on a spectrum: it needs ` +
+      `one of ${RESPONSE_METRICS.join(", ")} (name it in the standards table's header, e.g. ` +
+      `"band height (cm-1) @ 555 nm", or compute the responses from spectra)`,
+  );
+}
+
 /** Options of a metric. */
 export interface MetricOptions {
   /** Band centre to pick, nm (band metrics; default 555). */
@@ -56,6 +73,7 @@ export function spectrumResponse(
   metric: ResponseMetric,
   options: MetricOptions = {},
 ): Response {
+  spectrumMetric(metric);
   const alpha = alphaOf(spectrum);
   const nm = spectrum.wavelengthNm;
   if (metric === "alpha-at") {
