@@ -126,7 +126,9 @@ function cleanParserMessage(message: string): string {
   const unknown = /Unknown option '([^']+)'/.exec(message);
   if (unknown) return `Unknown option "${unknown[1]}"`;
   const missing = /Option '([^']+)' argument missing/.exec(message);
-  if (missing) return `Option "${missing[1]!.replace(/^-\w, /, "").replace(/ <value>$/, "")}" needs a value`;
+  if (missing) {
+    return `Option "${missing[1]!.replace(/^-\w, /, "").replace(/ <value>$/, "")}" needs a value`;
+  }
   return message.split(". To specify")[0]!.replace(/'/g, '"');
 }
 

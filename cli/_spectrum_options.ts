@@ -4,7 +4,8 @@
  *
  * @module
  */
-import { axisFromText, ordinateFromText } from "../lib/io/header_units.ts";
+import { axisFromText, ordinateFromText, type OrdinateKind } from "../lib/io/header_units.ts";
+import type { AxisUnit } from "../lib/spectrum/axis.ts";
 import type { ReadOptions } from "../lib/io/read_spectra.ts";
 import { readSpectrumFile } from "../lib/io/read_file.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
@@ -19,25 +20,34 @@ import type { ParsedArgs } from "./_command.ts";
 /** Logarithm base of α values. */
 export type AlphaBase = "e" | "10";
 
+/** The `--ordinate` choice, checked. */
+export function ordinateFrom(args: ParsedArgs): OrdinateKind | undefined {
+  const text = args.string("ordinate");
+  if (text === undefined) return undefined;
+  const kind = ordinateFromText(text);
+  if (!kind) {
+    throw new UsageError(
+      `Unknown --ordinate "${text}": use transmittance, percent, absorbance or alpha`,
+    );
+  }
+  return kind;
+}
+
+/** The `--axis` choice, checked. */
+export function axisFrom(args: ParsedArgs): AxisUnit | undefined {
+  const text = args.string("axis");
+  if (text === undefined) return undefined;
+  const axis = axisFromText(text);
+  if (!axis) throw new UsageError(`Unknown --axis "${text}": use nm, um, cm-1 or ev`);
+  return axis;
+}
+
 /** Reading options from the shared flags. */
 export function readOptionsFrom(args: ParsedArgs): ReadOptions {
   const options: ReadOptions = {};
-  const ordinate = args.string("ordinate");
-  if (ordinate !== undefined) {
-    const kind = ordinateFromText(ordinate);
-    if (!kind) {
-      throw new UsageError(
-        `Unknown --ordinate "${ordinate}": use transmittance, percent, absorbance or alpha`,
-      );
-    }
-    options.ordinate = kind;
-  }
-  const axisText = args.string("axis");
-  if (axisText !== undefined) {
-    const axis = axisFromText(axisText);
-    if (!axis) throw new UsageError(`Unknown --axis "${axisText}": use nm, um, cm-1 or ev`);
-    options.axis = axis;
-  }
+  const ordinate = ordinateFrom(args), axis = axisFrom(args);
+  if (ordinate !== undefined) options.ordinate = ordinate;
+  if (axis !== undefined) options.axis = axis;
   const thickness = positiveNumber(args.string("thickness"), "thickness");
   if (thickness !== undefined) options.thicknessMm = thickness;
   return options;

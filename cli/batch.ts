@@ -16,7 +16,7 @@ import {
 import type { CommandSpec, ParsedArgs } from "./_command.ts";
 import { EXIT, log, positiveNumber, UsageError } from "./_shared.ts";
 import { OBSERVER_NOTE, READING_OPTIONS } from "./_options.ts";
-import { alphaBaseFrom, readOptionsFrom } from "./_spectrum_options.ts";
+import { alphaBaseFrom, axisFrom, ordinateFrom } from "./_spectrum_options.ts";
 
 /** Every key a settings file may hold, with what it sets. */
 export const SETTINGS_KEYS: [string, string][] = [
@@ -112,7 +112,9 @@ async function settingsFor(args: ParsedArgs): Promise<BatchSettings | undefined>
     );
   }
   if (ordinate === undefined && axis === undefined) return undefined;
-  readOptionsFrom(args); // the same checks as every other command
+  // the same checks as every other command
+  ordinateFrom(args);
+  axisFrom(args);
   const path = args.string("settings");
   const settings = path ? await readSettingsFile(path) : defaultSettings();
   if (ordinate !== undefined) settings.ordinate = ordinate;

@@ -40,7 +40,7 @@ export const CSV_HEADERS: Readonly<Record<string, string>> = {
   sample: "sample",
   file: "file",
   illuminant: "illuminant",
-  observer: "observer (deg)",
+  observer: "observer",
   pathMm: "path (mm)",
   thicknessMm: "thickness (mm)",
   ...COLOR,

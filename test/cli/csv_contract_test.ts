@@ -59,7 +59,7 @@ describe("--csv of every row command parses as CSV with the documented header", 
     const rows = parseChecked(r.stdout, COLOR_KEYS);
     expect(rows.length).toBe(2); // D65 and A, 2° observer
     expectBooleans(rows, ["complementary", "srgbOutOfGamut", "p3OutOfGamut", "extrapolated"]);
-    expect(rows.map((x) => x["observer (deg)"])).toEqual(["2", "2"]);
+    expect(rows.map((x) => x["observer"])).toEqual(["2", "2"]);
   });
 
   it("change", async () => {
