@@ -65,7 +65,8 @@ export function commandOptions(spec: CommandSpec): OptionSpec[] {
   return [...spec.options, HELP_OPTION];
 }
 
-function wrap(text: string, width: number, indent: string): string[] {
+/** Words of `text` in lines of at most `width` characters, later lines indented. */
+export function wrap(text: string, width: number, indent: string): string[] {
   const lines: string[] = [];
   let line = "";
   for (const word of text.split(/\s+/).filter(Boolean)) {

@@ -3,7 +3,7 @@
  *
  * @module
  */
-import { runCommand } from "./_command.ts";
+import { runCommand, wrap } from "./_command.ts";
 import { COMMANDS } from "./commands.ts";
 import { EXIT, log, UsageError, withFlagHint } from "./_shared.ts";
 import { OBSERVER_NOTE } from "./_options.ts";
@@ -21,7 +21,7 @@ export function mainHelp(): string {
     ...COMMANDS.map((c) => `  ${c.name.padEnd(width)}${c.summary}`),
     "",
     'Run "crystint <command> --help" for the options of a command.',
-    OBSERVER_NOTE,
+    ...wrap(OBSERVER_NOTE, 100, ""),
     "Colour numbers are measurement aids, not a grading or appraisal.",
     "",
   ].join("\n");
