@@ -11,61 +11,90 @@ import { alphaOf } from "../lib/dopant/response_metric.ts";
 import { figureOfMerit } from "../lib/bands/figure_of_merit.ts";
 import { taucGap, urbachEnergy } from "../lib/bands/absorption_edge.ts";
 import { nmToEv } from "../lib/spectrum/axis.ts";
-import { EXIT, parseCommandArgs, round, toCsv, toTable, UsageError } from "./_shared.ts";
-import { forEachFile, readOptionsFrom } from "./_spectrum_options.ts";
+import type { CommandSpec, ParsedArgs } from "./_command.ts";
+import { EXIT, outputFormat, round, toCsv, toTable, UsageError, writeStdout } from "./_shared.ts";
+import { ALPHA_NOTE, OUTPUT_OPTIONS, READING_OPTIONS } from "./_options.ts";
+import { forEachFile } from "./_spectrum_options.ts";
 
-export const BANDS_HELP = `crystint bands — absorption bands fitted in wavenumber
-
-Usage:
-  crystint bands FILE… [--host NAME] [--range-nm FROM-TO] [--json|--csv] [options]
-
-Options:
-  --host NAME         host for the assignment hints (corundum, spinel, yag, chrysoberyl, beryl)
-  --range-nm A-B      fit only this wavelength range, e.g. 330-900
-  --baseline-nm LIST  band-free windows for the starting baseline, e.g. 330-340,740-780
-                      (default: found automatically outside the detected bands)
-  --ordinate KIND     transmittance | percent | absorbance | alpha (default: from the file)
-  --axis UNIT         nm | um | cm-1 | ev (default: from the file)
-  --thickness MM      measured thickness, mm (only used for α files)
-  --oscillator-strength F   add a Smakula–Dexter density estimate N per band (cm⁻³) for the
-                      oscillator strength F you supply (needs α: an α file or --thickness, and
-                      --host or --n for the index); an order-of-magnitude estimate
-  --n VALUE           refractive index for the estimate when no host is named
-  --merit PUMP,RES    figure of merit α(PUMP nm)/α(RES nm), e.g. 490,820 for Ti:sapphire
-                      (common practice)
-  --edge direct|indirect   Tauc gap and Urbach energy of the absorption edge (needs α)
-  --json | --csv      machine-readable output on stdout
-  -h, --help          show this help
-
-Bands are Gaussian in energy (Lorentzian for lines narrower than 150 cm⁻¹), fitted with a
-baseline b0 + b1·ν̃ + scatter·ν̃⁴ by Levenberg–Marquardt; ± are 1σ standard errors. The
-fitted ordinate is decadic absorbance as measured, or α for α files. Assignments are hints.
-
-Example:
-  crystint bands slabs/TCW-R03.csv --host corundum --range-nm 330-900 --json
-`;
+/** The command table of `crystint bands`. */
+export const BANDS_COMMAND: CommandSpec = {
+  name: "bands",
+  summary: "detect and fit absorption bands in wavenumber, with assignment hints",
+  usage: ["FILE… [--host NAME] [--range-nm FROM-TO] [--json|--csv] [options]"],
+  positionals: "FILE… spectrum exports (absorbance, transmittance or α).",
+  options: [
+    {
+      name: "host",
+      type: "string",
+      arg: "NAME",
+      help: "host for the assignment hints (corundum, spinel, yag, chrysoberyl, beryl)",
+    },
+    {
+      name: "range-nm",
+      type: "string",
+      arg: "A-B",
+      help: "fit only this wavelength range, e.g. 330-900",
+    },
+    {
+      name: "baseline-nm",
+      type: "string",
+      arg: "LIST",
+      help: "band-free windows for the starting baseline, e.g. 330-340,740-780",
+      default: "found automatically outside the detected bands",
+    },
+    ...READING_OPTIONS,
+    {
+      name: "oscillator-strength",
+      type: "string",
+      arg: "F",
+      help: "add a Smakula–Dexter density estimate N per band (cm⁻³) for the oscillator " +
+        "strength F you supply (needs α: an α file or --thickness, and --host or --n for the " +
+        "index); an order-of-magnitude estimate",
+    },
+    {
+      name: "n",
+      type: "string",
+      arg: "VALUE",
+      help: "refractive index for the estimate when no host is named",
+    },
+    {
+      name: "merit",
+      type: "string",
+      arg: "PUMP,RES",
+      help: "figure of merit α(PUMP nm)/α(RES nm), e.g. 490,820 for Ti:sapphire (common practice)",
+    },
+    {
+      name: "edge",
+      type: "string",
+      arg: "direct|indirect",
+      help: "Tauc gap and Urbach energy of the absorption edge (needs α)",
+    },
+    ...OUTPUT_OPTIONS,
+  ],
+  notes: [
+    "Bands are Gaussian in energy (Lorentzian for lines narrower than 150 cm⁻¹), fitted with a " +
+    "baseline b0 + b1·ν̃ + scatter·ν̃⁴ by Levenberg–Marquardt; ± are 1σ standard errors. The " +
+    "fitted ordinate is decadic absorbance as measured, or α (natural, cm⁻¹) for α files. " +
+    "Assignments are hints. --csv gives one row per band.",
+    ALPHA_NOTE,
+  ],
+  examples: ["slabs/TCW-R03.csv --host corundum --range-nm 330-900 --json"],
+  run: bandsCommand,
+};
 
 /** Runs the command; returns the exit code. */
-export async function bandsCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
-    ordinate: { type: "string" },
-    axis: { type: "string" },
-    thickness: { type: "string" },
-    host: { type: "string" },
-    "range-nm": { type: "string" },
-    "baseline-nm": { type: "string" },
-    "oscillator-strength": { type: "string" },
-    n: { type: "string" },
-    merit: { type: "string" },
-    edge: { type: "string" },
-    json: { type: "boolean" },
-    csv: { type: "boolean" },
-    help: { type: "boolean", short: "h" },
-  });
-  if (values.help) {
-    console.log(BANDS_HELP);
-    return EXIT.ok;
-  }
+async function bandsCommand(args: ParsedArgs): Promise<number> {
+  const positionals = args.positionals;
+  const values = {
+    host: args.string("host"),
+    "range-nm": args.string("range-nm"),
+    "baseline-nm": args.string("baseline-nm"),
+    "oscillator-strength": args.string("oscillator-strength"),
+    n: args.string("n"),
+    merit: args.string("merit"),
+    edge: args.string("edge"),
+  };
+  const format = outputFormat(args.flag("json"), args.flag("csv"));
   if (positionals.length === 0) {
     throw new UsageError("No input files: give one or more spectrum files");
   }
@@ -144,7 +173,7 @@ export async function bandsCommand(args: string[]): Promise<number> {
   if (values.edge !== undefined && !["direct", "indirect"].includes(values.edge)) {
     throw new UsageError(`Option --edge takes direct or indirect, got "${values.edge}"`);
   }
-  const failed = await forEachFile(positionals, readOptionsFrom(values), (spectra, file) => {
+  const failed = await forEachFile(positionals, args, (spectra, file) => {
     for (const s of spectra) {
       const fit = fitSpectrumBands(s, fitOptions);
       const extra: Partial<SampleBands> = {};
@@ -204,8 +233,8 @@ export async function bandsCommand(args: string[]): Promise<number> {
           "",
     }))
   );
-  if (values.json) console.log(JSON.stringify(results, null, 2));
-  else if (values.csv) {
+  if (format === "json") console.log(JSON.stringify(results, null, 2));
+  else if (format === "csv") {
     const cols = [
       "sample",
       "file",
@@ -223,7 +252,7 @@ export async function bandsCommand(args: string[]): Promise<number> {
       "areaSigma",
       "assignment",
     ];
-    Deno.stdout.writeSync(new TextEncoder().encode(toCsv(rows, cols)));
+    writeStdout(toCsv(rows, cols));
   } else {
     const shown = rows.map((r) => ({
       sample: r.sample,

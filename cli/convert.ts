@@ -16,68 +16,103 @@ import { writeSpectrumCsv } from "../lib/io/write_spectrum_csv.ts";
 import type { AxisUnit } from "../lib/spectrum/axis.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
 import { VERSION } from "../lib/version.ts";
-import {
-  EXIT,
-  log,
-  parseCommandArgs,
-  positiveNumber,
-  reportFailure,
-  UsageError,
-} from "./_shared.ts";
+import { EXIT, log, positiveNumber, reportFailure, UsageError } from "./_shared.ts";
+import type { CommandSpec, OptionSpec, ParsedArgs } from "./_command.ts";
 
-export const CONVERT_HELP = `crystint convert — rewrite spectra as CSV or JCAMP-DX
-
-Usage:
-  crystint convert IN… --to csv|jcamp (--out FILE | --out-dir DIR) [options]
-
-Options:
-  --to FORMAT         csv (Key: value preamble, then x,y) or jcamp (JCAMP-DX 4.24)
-  --out FILE          the output file (one input holding one spectrum)
-  --out-dir DIR       one output per spectrum: DIR/<input stem>.<csv|jdx>, or
-                      DIR/<input stem>-<sample>.<ext> when a file holds several
-  --force             replace existing outputs (an input is never replaced)
-  --ordinate KIND     ordinate to write: transmittance | percent | absorbance | alpha |
-                      reflectance | percent-reflectance (default: the measured quantity);
-                      T, A and alpha convert into each other by Beer–Lambert (alpha needs
-                      the thickness; surface reflections are not removed)
-  --alpha-base e|10   napierian (default) or decadic absorption coefficient
-  --axis UNIT         x axis to write: nm (default) | um | cm-1 | ev
-  --grid A:B:STEP     resample onto A, A+STEP, …, B in the --axis unit, with the method
-                      CIE 167 recommends for the data's spacing (named in the output)
-  --form FORM         JCAMP-DX ordinates: difdup (default, with Y-checks) or affn
-  --digits N          at most N significant digits for the ordinate (default 7); fewer
-                      when the data carry fewer
-  --thickness MM      thickness of the measured slab (overrides the file's metadata)
-  --host NAME         host crystal, recorded in the output's metadata
-  --in-ordinate KIND  what the input values are, when the file does not say
-  --in-axis UNIT      the input's x axis unit, when the file does not say
-  -h, --help          show this help
-
-Exit codes: 0 all done, 1 usage error or an output that exists (nothing is written),
-2 some inputs failed (the others are written).
-
-Example:
-  crystint convert exports/ruby-03.csv --to jcamp --ordinate absorbance --grid 380:780:5 \\
-    --out-dir archive/
-`;
-
-const OPTIONS = {
-  to: { type: "string" },
-  out: { type: "string" },
-  "out-dir": { type: "string" },
-  force: { type: "boolean" },
-  ordinate: { type: "string" },
-  "alpha-base": { type: "string" },
-  axis: { type: "string" },
-  grid: { type: "string" },
-  form: { type: "string" },
-  digits: { type: "string" },
-  thickness: { type: "string" },
-  host: { type: "string" },
-  "in-ordinate": { type: "string" },
-  "in-axis": { type: "string" },
-  help: { type: "boolean", short: "h" },
-} as const;
+const OPTIONS: OptionSpec[] = [
+  {
+    name: "to",
+    type: "string",
+    arg: "FORMAT",
+    help: "csv (Key: value preamble, then x,y) or jcamp (JCAMP-DX 4.24)",
+  },
+  {
+    name: "out",
+    type: "string",
+    arg: "FILE",
+    help: "the output file (one input holding one spectrum)",
+  },
+  {
+    name: "out-dir",
+    type: "string",
+    arg: "DIR",
+    help:
+      "one output per spectrum: DIR/<input stem>.<csv|jdx>, or DIR/<input stem>-<sample>.<ext> when a file holds several",
+  },
+  {
+    name: "force",
+    type: "boolean",
+    help: "replace existing outputs (an input is never replaced)",
+  },
+  {
+    name: "ordinate",
+    type: "string",
+    arg: "KIND",
+    help:
+      "ordinate to write: transmittance | percent | absorbance | alpha | reflectance | percent-reflectance; T, A and alpha convert into each other by Beer–Lambert (alpha needs the thickness; surface reflections are not removed)",
+    default: "the measured quantity",
+  },
+  {
+    name: "alpha-base",
+    type: "string",
+    arg: "e|10",
+    help:
+      "napierian (default: A = α·d / ln 10, the physics convention) or decadic (A = α·d) absorption coefficient for the output",
+    default: "e",
+  },
+  {
+    name: "axis",
+    type: "string",
+    arg: "UNIT",
+    help: "x axis to write: nm | um | cm-1 | ev",
+    default: "nm",
+  },
+  {
+    name: "grid",
+    type: "string",
+    arg: "A:B:STEP",
+    help:
+      "resample onto A, A+STEP, …, B in the --axis unit, with the method CIE 167 recommends for the data's spacing (named in the output)",
+  },
+  {
+    name: "form",
+    type: "string",
+    arg: "FORM",
+    help: "JCAMP-DX ordinates: difdup (with Y-checks) or affn",
+    default: "difdup",
+  },
+  {
+    name: "digits",
+    type: "string",
+    arg: "N",
+    help: "at most N significant digits for the ordinate; fewer when the data carry fewer",
+    default: "7",
+  },
+  {
+    name: "thickness",
+    type: "string",
+    arg: "MM",
+    help: "thickness of the measured slab (overrides the file's metadata)",
+  },
+  {
+    name: "host",
+    type: "string",
+    arg: "NAME",
+    help: "host crystal, recorded in the output's metadata",
+  },
+  {
+    name: "in-ordinate",
+    type: "string",
+    arg: "KIND",
+    help: "what the input values are, when the file does not say",
+  },
+  {
+    name: "in-axis",
+    type: "string",
+    arg: "UNIT",
+    help: "the input's x axis unit, when the file does not say",
+  },
+];
 
 /** What to write, decided from the options before any file is read. */
 interface Plan {
@@ -260,12 +295,24 @@ function namesFor(
 }
 
 /** Runs the command; returns the exit code. */
-export async function convertCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, OPTIONS);
-  if (values.help) {
-    console.log(CONVERT_HELP);
-    return EXIT.ok;
-  }
+async function convert(args: ParsedArgs): Promise<number> {
+  const positionals = args.positionals;
+  const values = {
+    to: args.string("to"),
+    out: args.string("out"),
+    "out-dir": args.string("out-dir"),
+    force: args.flag("force"),
+    ordinate: args.string("ordinate"),
+    "alpha-base": args.string("alpha-base"),
+    axis: args.string("axis"),
+    grid: args.string("grid"),
+    form: args.string("form"),
+    digits: args.string("digits"),
+    thickness: args.string("thickness"),
+    host: args.string("host"),
+    "in-ordinate": args.string("in-ordinate"),
+    "in-axis": args.string("in-axis"),
+  };
   if (positionals.length === 0) {
     throw new UsageError("No input files: give one or more spectrum files");
   }
@@ -336,3 +383,19 @@ export async function convertCommand(args: string[]): Promise<number> {
   if (failed > 0) log(`crystint: ${failed} of ${positionals.length} file(s) failed`);
   return failed > 0 ? EXIT.someFailed : EXIT.ok;
 }
+
+/** The command table of `crystint convert`. */
+export const CONVERT_COMMAND: CommandSpec = {
+  name: "convert",
+  summary: "rewrite spectra as CSV or JCAMP-DX, with another ordinate, axis or grid",
+  usage: ["IN… --to csv|jcamp (--out FILE | --out-dir DIR) [options]"],
+  positionals: "Spectrum exports (any layout crystint reads, JCAMP-DX included).",
+  options: OPTIONS,
+  notes: [
+    "Exit codes: 0 all done, 1 usage error or an output that exists (nothing is written), 2 some inputs failed (the others are written).",
+  ],
+  examples: [
+    "exports/ruby-03.csv --to jcamp --ordinate absorbance --grid 380:780:5 --out-dir archive/",
+  ],
+  run: convert,
+};

@@ -4,35 +4,28 @@
  * @module
  */
 import { reportFromResults } from "../lib/batch/report_from_results.ts";
-import { SettingsError } from "../lib/batch/settings_schema.ts";
-import { EXIT, parseCommandArgs, UsageError } from "./_shared.ts";
+import { SettingsError } from "../lib/batch/mod.ts";
+import type { CommandSpec } from "./_command.ts";
+import { EXIT, UsageError } from "./_shared.ts";
 
-export const REPORT_HELP = `crystint report — re-render the HTML report from results.json
-
-Usage:
-  crystint report results.json --out DIR
-
-Example:
-  crystint report reports/demo/results.json --out reports/demo-copy
-`;
-
-/** Runs the command; returns the exit code. */
-export async function reportCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
-    out: { type: "string" },
-    help: { type: "boolean", short: "h" },
-  });
-  if (values.help) {
-    console.log(REPORT_HELP);
+/** The command table of `crystint report`. */
+export const REPORT_COMMAND: CommandSpec = {
+  name: "report",
+  summary: "re-render the HTML report from a saved results.json",
+  usage: ["results.json --out DIR"],
+  positionals: 'results.json written by "crystint batch".',
+  options: [{ name: "out", type: "string", arg: "DIR", help: "output folder (required)" }],
+  examples: ["reports/demo/results.json --out reports/demo-copy"],
+  async run(args) {
+    if (args.positionals.length !== 1) throw new UsageError("Give exactly one results.json");
+    const out = args.string("out");
+    if (!out) throw new UsageError("Option --out DIR is required");
+    try {
+      console.log(await reportFromResults(args.positionals[0]!, out));
+    } catch (e) {
+      if (e instanceof SettingsError) throw new UsageError(e.message);
+      throw e;
+    }
     return EXIT.ok;
-  }
-  if (positionals.length !== 1) throw new UsageError("Give exactly one results.json");
-  if (!values.out) throw new UsageError("Option --out DIR is required");
-  try {
-    console.log(await reportFromResults(positionals[0]!, values.out));
-  } catch (e) {
-    if (e instanceof SettingsError) throw new UsageError(e.message);
-    throw e;
-  }
-  return EXIT.ok;
-}
+  },
+};

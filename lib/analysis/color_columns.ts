@@ -1,50 +1,50 @@
 /**
- * The one mapping from colour-row keys (the JSON contract) to CSV headers with units, used by
- * every CSV writer (`color --csv`, results.csv).
+ * The colour columns of results.csv in order, and CSV cells: booleans `true`/`false`, numbers
+ * to the column's decimals, spreadsheet-safe text. Headers come from the one mapping in
+ * csv_headers.ts.
  *
  * @module
  */
 import { roundTo } from "../numeric/round.ts";
+import { csvHeader } from "./csv_headers.ts";
 import type { ColourRow } from "../cie/spectrum_colour.ts";
 
-/** A column of a colour table: the row key, its CSV header, decimals kept in CSV. */
+/** A column of a colour table: the row key and the decimals kept in CSV. */
 export interface ColorColumn {
-  /** Key in the JSON rows. */
+  /** Key in the JSON rows (its CSV header comes from `csvHeader`). */
   key: keyof ColourRow;
-  /** Header in CSV files. */
-  header: string;
   /** Decimals written in CSV (none: written as is). */
   decimals?: number;
 }
 
 /** The colour columns, in output order. */
 export const COLOR_COLUMNS: readonly ColorColumn[] = [
-  { key: "sample", header: "sample" },
-  { key: "file", header: "file" },
-  { key: "illuminant", header: "illuminant" },
-  { key: "observer", header: "observer" },
-  { key: "pathMm", header: "path (mm)" },
-  { key: "X", header: "X", decimals: 4 },
-  { key: "Y", header: "Y", decimals: 4 },
-  { key: "Z", header: "Z", decimals: 4 },
-  { key: "x", header: "x", decimals: 4 },
-  { key: "y", header: "y", decimals: 4 },
-  { key: "L", header: "L*", decimals: 4 },
-  { key: "a", header: "a*", decimals: 4 },
-  { key: "b", header: "b*", decimals: 4 },
-  { key: "C", header: "C*ab", decimals: 4 },
-  { key: "h", header: "h_ab (deg)", decimals: 4 },
-  { key: "uPrime", header: "u'", decimals: 4 },
-  { key: "vPrime", header: "v'", decimals: 4 },
-  { key: "dominantNm", header: "dominant or complementary (nm)", decimals: 1 },
-  { key: "complementary", header: "complementary" },
-  { key: "purity", header: "excitation purity", decimals: 4 },
-  { key: "srgb", header: "sRGB" },
-  { key: "srgbOutOfGamut", header: "outside sRGB" },
-  { key: "p3", header: "Display P3" },
-  { key: "p3OutOfGamut", header: "outside Display P3" },
-  { key: "method", header: "interpolation" },
-  { key: "extrapolated", header: "extrapolated" },
+  { key: "sample" },
+  { key: "file" },
+  { key: "illuminant" },
+  { key: "observer" },
+  { key: "pathMm" },
+  { key: "X", decimals: 4 },
+  { key: "Y", decimals: 4 },
+  { key: "Z", decimals: 4 },
+  { key: "x", decimals: 4 },
+  { key: "y", decimals: 4 },
+  { key: "L", decimals: 4 },
+  { key: "a", decimals: 4 },
+  { key: "b", decimals: 4 },
+  { key: "C", decimals: 4 },
+  { key: "h", decimals: 4 },
+  { key: "uPrime", decimals: 4 },
+  { key: "vPrime", decimals: 4 },
+  { key: "dominantNm", decimals: 1 },
+  { key: "complementary" },
+  { key: "purity", decimals: 4 },
+  { key: "srgb" },
+  { key: "srgbOutOfGamut" },
+  { key: "p3" },
+  { key: "p3OutOfGamut" },
+  { key: "method" },
+  { key: "extrapolated" },
 ];
 
 /**
@@ -67,6 +67,11 @@ export function csvCell(value: unknown, decimals?: number): string | number {
     return decimals === undefined ? value : roundTo(value, decimals);
   }
   return spreadsheetSafe(String(value));
+}
+
+/** The CSV headers of the colour columns. */
+export function colorHeaders(): string[] {
+  return COLOR_COLUMNS.map((c) => csvHeader(c.key));
 }
 
 /** The cells of one colour row, in {@linkcode COLOR_COLUMNS} order. */

@@ -7,7 +7,7 @@
 import { stringify } from "csv-stringify/sync";
 import type { SampleResult } from "../analysis/sample_result.ts";
 import {
-  COLOR_COLUMNS,
+  colorHeaders,
   colorRowCells,
   csvCell,
   spreadsheetSafe,
@@ -35,7 +35,7 @@ const SAMPLE_COLUMNS = [
 /** The header row, with the sheet's extra columns. */
 export function resultsCsvHeader(extraColumns: string[]): string {
   return stringify([[
-    ...COLOR_COLUMNS.map((c) => c.header),
+    ...colorHeaders(),
     ...SAMPLE_COLUMNS,
     ...extraColumns.map(spreadsheetSafe),
   ]]);
