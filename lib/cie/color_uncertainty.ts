@@ -109,7 +109,7 @@ export interface ColorUncertaintyOptions {
 }
 
 /** Points on each side of the moving window of the noise estimate. */
-const NOISE_HALF_WINDOW = 25;
+const NOISE_HALF_WINDOW = 50;
 /** Var(v_{i−2} − 4v_{i−1} + 6v_i − 4v_{i+1} + v_{i+2}) = 70 σ² for white noise. */
 const FOURTH_DIFFERENCE_VARIANCE = 70;
 /** σ = 1.4826 · MAD for a normal distribution. */
@@ -125,7 +125,7 @@ function median(v: number[]): number {
 /**
  * Per-point photometric noise σ estimated from the high-frequency residual: fourth differences
  * (which cancel any cubic trend, so smooth bands barely contribute), robust scale (1.4826 ·
- * median absolute deviation) over a moving window of ±25 points, so noise that grows where the
+ * median absolute deviation) over a moving window of ±50 points, so noise that grows where the
  * sample is dark is followed. Instruments that smooth their output make this an underestimate.
  *
  * @param values Measured values in their own ordinate, on a (nearly) uniform grid.
