@@ -23,6 +23,13 @@ import {
   SPECTRUM_OPTIONS,
   SPECTRUM_OPTIONS_HELP,
 } from "./_spectrum_options.ts";
+import {
+  changeUncertainty,
+  normaliseUncertaintyArgs,
+  UNCERTAINTY_OPTIONS,
+  UNCERTAINTY_OPTIONS_HELP,
+  uncertaintyFrom,
+} from "./_uncertainty_options.ts";
 
 export const CHANGE_HELP = `crystint change — colour change between two illuminants
 
@@ -36,10 +43,12 @@ Options:
   --adapt METHOD      compare after adapting the second colour to the first white
                       (cat16 or bradford); default: each under its own white
 ${SPECTRUM_OPTIONS_HELP}
+${UNCERTAINTY_OPTIONS_HELP}
   -h, --help          show this help
 
 Each row: sample, file, from, to, observer, dE00, dEab, dL, dC, dh (dh signed, degrees,
 wrapped to −180…180), then L1 a1 b1 C1 h1 under the first and L2 a2 b2 C2 h2 under the second.
+With --uncertainty also dE00Sd (standard uncertainty of dE00, the two colours correlated).
 Colour change is a measurement, not a grading: any threshold is a setting (common practice).
 
 Example:
@@ -49,10 +58,13 @@ Example:
 const COLUMNS = ["sample", "file", "from", "to", "observer", "dE00", "dEab", "dL", "dC", "dh"];
 const EXTRA = ["L1", "a1", "b1", "C1", "h1", "L2", "a2", "b2", "C2", "h2", "adapt", "pathMm"];
 
+const CHANGE_SD = ["dE00Sd", "uncertaintyMode", "noiseSd", "noiseSource"];
+
 /** Runs the command; returns the exit code. */
 export async function changeCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
+  const { values, positionals } = parseCommandArgs(normaliseUncertaintyArgs(args), {
     ...SPECTRUM_OPTIONS,
+    ...UNCERTAINTY_OPTIONS,
     from: { type: "string" },
     to: { type: "string" },
     observer: { type: "string" },
@@ -74,6 +86,7 @@ export async function changeCommand(args: string[]): Promise<number> {
   const readOptions = readOptionsFrom(values);
   const reflection = reflectionFrom(values);
   const pathMm = positiveNumber(values.path, "path");
+  const uncertainty = uncertaintyFrom(values);
   const rows: Record<string, unknown>[] = [];
   const failed = await forEachFile(positionals, readOptions, (spectra, file) => {
     for (const s of spectra) {
@@ -102,17 +115,31 @@ export async function changeCommand(args: string[]): Promise<number> {
         h2: c.hueTo,
         adapt: c.adapt,
         pathMm: pathMm ?? s.thicknessMm ?? null,
+        ...(uncertainty
+          ? changeUncertainty(s, from!, to!, observer!, uncertainty, {
+            adapt: adapt as "none",
+            reflection,
+            ...(pathMm === undefined ? {} : { pathMm }),
+          })
+          : {}),
       });
     }
   });
   if (values.json) console.log(JSON.stringify(rows, null, 2));
   else if (values.csv) {
-    Deno.stdout.writeSync(new TextEncoder().encode(toCsv(rows, [...COLUMNS, ...EXTRA])));
+    Deno.stdout.writeSync(
+      new TextEncoder().encode(
+        toCsv(rows, [...COLUMNS, ...EXTRA, ...(uncertainty ? CHANGE_SD : [])]),
+      ),
+    );
   } else {
     const shown = rows.map((r) =>
-      Object.fromEntries(Object.entries(r).map(([k, v]) => [k, round(v, 2)]))
+      Object.fromEntries(Object.entries(r).map(([k, v]) => [k, round(v, k === "dE00Sd" ? 4 : 2)]))
     );
-    console.log(toTable(shown, [...COLUMNS.filter((c) => c !== "file"), "C1", "h1", "C2", "h2"]));
+    const sd = uncertainty ? ["dE00Sd"] : [];
+    console.log(
+      toTable(shown, [...COLUMNS.filter((c) => c !== "file"), "C1", "h1", "C2", "h2", ...sd]),
+    );
   }
   return failed > 0 ? EXIT.someFailed : EXIT.ok;
 }

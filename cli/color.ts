@@ -24,6 +24,14 @@ import {
   SPECTRUM_OPTIONS,
   SPECTRUM_OPTIONS_HELP,
 } from "./_spectrum_options.ts";
+import {
+  COLOR_UNCERTAINTY_COLUMNS,
+  normaliseUncertaintyArgs,
+  UNCERTAINTY_OPTIONS,
+  UNCERTAINTY_OPTIONS_HELP,
+  uncertaintyFrom,
+  withColorUncertainty,
+} from "./_uncertainty_options.ts";
 
 export const COLOR_HELP = `crystint color — CIE colour of measured spectra
 
@@ -36,11 +44,14 @@ ${SPECTRUM_OPTIONS_HELP}
                       D<cct>K, or an SPD
                       file (default: D65,A)
   --observer LIST     2 (CIE 1931) and/or 10 (CIE 1964) (default: 2)
+${UNCERTAINTY_OPTIONS_HELP}
   -h, --help          show this help
 
 Each row: sample, file, illuminant, observer, pathMm, X, Y, Z, x, y, L, a, b, C, h
 (L*a*b* relative to the white of the illuminant used; h in degrees), then u′v′, dominant
-wavelength and purity, sRGB / Display P3 swatches with out-of-gamut flags.
+wavelength and purity, sRGB / Display P3 swatches with out-of-gamut flags. With
+--uncertainty also LSd, aSd, bSd, CSd, hSd (standard uncertainties, k = 1) and, in --json,
+labCovariance (3×3) and the sources used.
 Exit codes: 0 all files done, 1 usage error, 2 some files failed.
 
 Example:
@@ -78,10 +89,13 @@ const EXTRA = [
   "extrapolated",
 ];
 
+const SHOWN_SD = ["LSd", "aSd", "bSd"];
+
 /** Runs the command; returns the exit code. */
 export async function colorCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
+  const { values, positionals } = parseCommandArgs(normaliseUncertaintyArgs(args), {
     ...SPECTRUM_OPTIONS,
+    ...UNCERTAINTY_OPTIONS,
     illuminant: { type: "string" },
     observer: { type: "string" },
   });
@@ -98,16 +112,19 @@ export async function colorCommand(args: string[]): Promise<number> {
   const pathMm = positiveNumber(values.path, "path");
   const observers = checkObservers(listOption(values.observer, ["2"]));
   const illuminants = await resolveIlluminants(listOption(values.illuminant, ["D65", "A"]));
+  const uncertainty = uncertaintyFrom(values);
   const rows: ColourRow[] = [];
   const failed = await forEachFile(positionals, readOptions, (spectra, file) => {
-    const fileRows = spectra.flatMap((s) =>
-      spectrumColour(s, {
-        illuminants,
-        observers,
-        reflection,
-        ...(pathMm === undefined ? {} : { pathMm }),
-      })
-    );
+    const options = {
+      illuminants,
+      observers,
+      reflection,
+      ...(pathMm === undefined ? {} : { pathMm }),
+    };
+    const fileRows = spectra.flatMap((s) => {
+      const plain = spectrumColour(s, options);
+      return uncertainty ? withColorUncertainty(plain, s, uncertainty, options, file) : plain;
+    });
     const s = spectra[0]!;
     const lo = s.wavelengthNm[0]!, hi = s.wavelengthNm[s.wavelengthNm.length - 1]!;
     if (lo > 380 || hi < 780) {
@@ -121,15 +138,22 @@ export async function colorCommand(args: string[]): Promise<number> {
   if (values.json) {
     console.log(JSON.stringify(rows, null, 2));
   } else if (values.csv) {
-    Deno.stdout.writeSync(new TextEncoder().encode(toCsv(records, [...COLUMNS, ...EXTRA])));
+    Deno.stdout.writeSync(new TextEncoder().encode(toCsv(records, [
+      ...COLUMNS,
+      ...EXTRA,
+      ...(uncertainty ? COLOR_UNCERTAINTY_COLUMNS : []),
+    ])));
   } else {
     const shown = records.map((r) => {
       const o: Record<string, unknown> = {};
-      for (const c of [...COLUMNS, "srgb"]) o[c] = round(r[c], ["x", "y"].includes(c) ? 4 : 2);
+      for (const c of [...COLUMNS, "srgb", ...SHOWN_SD]) {
+        o[c] = round(r[c], ["x", "y"].includes(c) || SHOWN_SD.includes(c) ? 4 : 2);
+      }
       if (r["srgbOutOfGamut"]) o["srgb"] = `${o["srgb"]}*`;
       return o;
     });
-    console.log(toTable(shown, [...COLUMNS.filter((c) => c !== "file"), "srgb"]));
+    const sd = uncertainty ? SHOWN_SD : [];
+    console.log(toTable(shown, [...COLUMNS.filter((c) => c !== "file"), "srgb", ...sd]));
     if (records.some((r) => r["srgbOutOfGamut"])) {
       log("* outside the sRGB gamut: the swatch is chroma-reduced");
     }
