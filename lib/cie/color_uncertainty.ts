@@ -131,11 +131,14 @@ function median(v: number[]): number {
  * @param values Measured values in their own ordinate, on a (nearly) uniform grid.
  * @returns σ per point, same length; zeros when fewer than 9 points.
  *
- * @example White noise of known σ is recovered
+ * @example Uniform noise of σ 0.001 on a sloping baseline is recovered
  * ```ts
  * import { estimateNoiseSd } from "./color_uncertainty.ts";
- * const v = Float64Array.from({ length: 400 }, (_, i) => 0.5 + (i % 2 ? 0.001 : -0.001));
- * if (!(estimateNoiseSd(v)[200]! > 0)) throw new Error("alternating noise must show");
+ * let seed = 12345;
+ * const uniform = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648) - 0.5;
+ * const v = Float64Array.from({ length: 400 }, (_, i) => 0.3 + i / 1000 + 0.001 * Math.sqrt(12) * uniform());
+ * const sd = estimateNoiseSd(v)[200]!;
+ * if (Math.abs(sd / 0.001 - 1) > 0.3) throw new Error(String(sd));
  * ```
  */
 export function estimateNoiseSd(values: ArrayLike<number>): Float64Array<ArrayBuffer> {

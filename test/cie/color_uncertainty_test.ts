@@ -151,6 +151,35 @@ describe("Monte Carlo mode (JCGM 101) against first order", () => {
     });
   }
 
+  it("absorbance export, noise growing as T falls, Fresnel surfaces, estimated noise: mc and linear within 10 %", () => {
+    // an absorbance file as an instrument writes it: σ_T = 0.002 becomes σ_A = σ_T/(T ln 10)
+    const normal = seededNormal(31);
+    const a = Float64Array.from(NM, (l) => {
+      const t = 0.85 * 10 ** -(0.05 + 0.9 * gauss(l, 575, 55) + 0.6 * gauss(l, 410, 30));
+      return -Math.log10(t + 0.002 * normal());
+    });
+    const s: Spectrum = {
+      wavelengthNm: Float64Array.from(NM),
+      values: a,
+      quantity: "absorbance",
+      thicknessMm: 2,
+      meta: { sample: "absorbance export" },
+    };
+    const options = {
+      illuminants: ["D65"],
+      pathMm: 4,
+      reflection: { reflection: "host" as const, n: 1.76 },
+      sources: { thicknessSdMm: 0.02, wavelengthSdNm: 0.3 },
+    };
+    const [lin] = spectrumColorUncertainty(s, options);
+    const [mc] = spectrumColorMonteCarlo(s, { ...options, draws: 4000, seed: 2 });
+    expect(lin!.sources.noiseSource).toBe("estimated");
+    expect(lin!.sources.noiseSdMax).toBeGreaterThan(1.5 * lin!.sources.noiseSd);
+    for (const k of ["LSd", "aSd", "bSd"] as const) {
+      expect(Math.abs(mc![k] / lin![k] - 1)).toBeLessThan(0.1);
+    }
+  });
+
   it("near-black stone (T ≈ 0.005 at 2 mm, noise 0.003, to 6 mm): mc differs visibly from linear", () => {
     const black = slab("near-black", (l) => 2.3 + 0.2 * gauss(l, 560, 50), 0, 9);
     const options = { illuminants: ["D65"], pathMm: 6, sources: { noiseSd: 0.003 } };
