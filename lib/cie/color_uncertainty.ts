@@ -403,9 +403,16 @@ export function uncertaintyNotes(
       "noise σ estimated from the spectrum's high-frequency residual (robust fourth differences); give noiseSd if the instrument smooths its output",
     );
   }
-  const rescaled = pathMm !== undefined || spectrum.quantity === "alpha";
-  if (!rescaled && (resolved.thicknessSdMm > 0 || resolved.pathSdMm > 0)) {
-    notes.push("no path rescaling: thickness and path uncertainties do not affect this colour");
+  const alpha = spectrum.quantity === "alpha";
+  if (resolved.thicknessSdMm > 0 && (alpha ? pathMm !== undefined : pathMm === undefined)) {
+    notes.push(
+      alpha
+        ? "α does not depend on the measured thickness: its uncertainty does not affect this colour"
+        : "no path rescaling: the thickness uncertainty does not affect this colour",
+    );
+  }
+  if (resolved.pathSdMm > 0 && pathMm === undefined) {
+    notes.push("no target path given: the path uncertainty does not apply");
   }
   notes.push(
     "sources taken as independent; sample inhomogeneity and instrument geometry are not included",
