@@ -49,6 +49,8 @@ export interface CommandSpec {
   /** Paragraphs after the options: output columns, conventions, exit codes. */
   notes?: string[];
   examples: string[];
+  /** Rewrites the raw arguments before parsing (e.g. `--uncertainty mc`). */
+  prepareArgs?: (args: string[]) => string[];
   run(args: ParsedArgs): Promise<number>;
 }
 
@@ -174,7 +176,7 @@ export function parseCommand(spec: CommandSpec, args: string[]): ParsedArgs & { 
 
 /** Parses, prints help when asked, and runs the command; returns the exit code. */
 export async function runCommand(spec: CommandSpec, args: string[]): Promise<number> {
-  const parsed = parseCommand(spec, args);
+  const parsed = parseCommand(spec, spec.prepareArgs ? spec.prepareArgs(args) : args);
   if (parsed.help) {
     console.log(helpText(spec));
     return EXIT.ok;

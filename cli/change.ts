@@ -32,9 +32,18 @@ import {
   resolveIlluminants,
   surfaceLossNote,
 } from "./_spectrum_options.ts";
+import {
+  changeUncertainty,
+  normaliseUncertaintyArgs,
+  UNCERTAINTY_OPTIONS,
+  uncertaintyFromArgs,
+} from "./_uncertainty_options.ts";
 
 const COLUMNS = ["sample", "file", "from", "to", "observer", "dE00", "dEab", "dL", "dC", "dh"];
 const EXTRA = ["L1", "a1", "b1", "C1", "h1", "L2", "a2", "b2", "C2", "h2", "adapt", "pathMm"];
+
+/** Uncertainty columns of a change row. */
+const CHANGE_SD = ["dE00Sd", "uncertaintyMode", "noiseSd", "noiseSource"];
 
 /** The command table of `crystint change`. */
 export const CHANGE_COMMAND: CommandSpec = {
@@ -55,13 +64,16 @@ export const CHANGE_COMMAND: CommandSpec = {
     },
     ...READING_OPTIONS,
     ...OPTICS_OPTIONS,
+    ...UNCERTAINTY_OPTIONS,
     ...OUTPUT_OPTIONS,
   ],
+  prepareArgs: normaliseUncertaintyArgs,
   notes: [
     "Each row: sample, file, from, to, observer, dE00, dEab, dL, dC, dh (dh signed, degrees, " +
     "wrapped to −180…180), then L1 a1 b1 C1 h1 under the first and L2 a2 b2 C2 h2 under the " +
     "second. Colour change is a measurement, not a grading: any threshold is a setting " +
-    "(common practice).",
+    "(common practice). With --uncertainty also dE00Sd (standard uncertainty of dE00, the " +
+    "two colours correlated).",
     OBSERVER_NOTE,
     ALPHA_NOTE,
   ],
@@ -83,6 +95,7 @@ export const CHANGE_COMMAND: CommandSpec = {
     const reflection = reflectionFrom(args);
     const pathMm = positiveNumber(args.string("path"), "path");
     const note = surfaceLossNote(reflection, args);
+    const uncertainty = uncertaintyFromArgs(args);
     const rows: Record<string, unknown>[] = [];
     const failed = await forEachFile(args.positionals, args, (spectra, file) => {
       for (const s of spectra) {
@@ -112,17 +125,26 @@ export const CHANGE_COMMAND: CommandSpec = {
           h2: c.hueTo,
           adapt: c.adapt,
           pathMm: pathMm ?? s.thicknessMm ?? null,
+          ...(uncertainty
+            ? changeUncertainty(s, from!, to!, observer!, uncertainty, {
+              adapt: adapt as "none",
+              reflection,
+              ...(pathMm === undefined ? {} : { pathMm }),
+            })
+            : {}),
         });
       }
     });
     if (format === "json") console.log(JSON.stringify(rows, null, 2));
-    else if (format === "csv") writeStdout(toCsv(rows, [...COLUMNS, ...EXTRA]));
-    else {
+    else if (format === "csv") {
+      writeStdout(toCsv(rows, [...COLUMNS, ...EXTRA, ...(uncertainty ? CHANGE_SD : [])]));
+    } else {
       const shown = rows.map((r) =>
-        Object.fromEntries(Object.entries(r).map(([k, v]) => [k, round(v, 2)]))
+        Object.fromEntries(Object.entries(r).map(([k, v]) => [k, round(v, k === "dE00Sd" ? 4 : 2)]))
       );
+      const sd = uncertainty ? ["dE00Sd"] : [];
       console.log(
-        toTable(shown, [...COLUMNS.filter((c) => c !== "file"), "C1", "h1", "C2", "h2"]),
+        toTable(shown, [...COLUMNS.filter((c) => c !== "file"), "C1", "h1", "C2", "h2", ...sd]),
       );
     }
     return failed > 0 ? EXIT.someFailed : EXIT.ok;

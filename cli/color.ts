@@ -34,6 +34,13 @@ import {
   resolveIlluminants,
   surfaceLossNote,
 } from "./_spectrum_options.ts";
+import {
+  COLOR_UNCERTAINTY_COLUMNS,
+  normaliseUncertaintyArgs,
+  UNCERTAINTY_OPTIONS,
+  uncertaintyFromArgs,
+  withColorUncertainty,
+} from "./_uncertainty_options.ts";
 
 /** The contract keys of a colour row (shared/DESIGN.md), in output order. */
 export const COLOR_KEYS = [
@@ -68,6 +75,9 @@ export const COLOR_EXTRA_KEYS = [
   "extrapolated",
 ];
 
+/** Uncertainty columns the terminal table shows. */
+const SHOWN_SD = ["LSd", "aSd", "bSd"];
+
 /** The command table of `crystint color`. */
 export const COLOR_COMMAND: CommandSpec = {
   name: "color",
@@ -79,12 +89,16 @@ export const COLOR_COMMAND: CommandSpec = {
     ...OPTICS_OPTIONS,
     illuminantOption("D65,A"),
     observerOption(),
+    ...UNCERTAINTY_OPTIONS,
     ...OUTPUT_OPTIONS,
   ],
+  prepareArgs: normaliseUncertaintyArgs,
   notes: [
     "Each row: sample, file, illuminant, observer, pathMm, X, Y, Z, x, y, L, a, b, C, h " +
     "(L*a*b* relative to the white of the illuminant used; h in degrees), then u′v′, dominant " +
-    "wavelength and purity, sRGB / Display P3 swatches with out-of-gamut flags.",
+    "wavelength and purity, sRGB / Display P3 swatches with out-of-gamut flags. With " +
+    "--uncertainty also LSd, aSd, bSd, CSd, hSd (standard uncertainties, k = 1) and, in --json, " +
+    "labCovariance (3×3) and the sources used.",
     OBSERVER_NOTE,
     ALPHA_NOTE,
     "Exit codes: 0 all files done, 1 usage error, 2 some files failed.",
@@ -102,17 +116,20 @@ export const COLOR_COMMAND: CommandSpec = {
       listOption(args.string("illuminant"), ["D65", "A"]),
     );
     const note = surfaceLossNote(reflection, args);
+    const uncertainty = uncertaintyFromArgs(args);
     const rows: ColourRow[] = [];
     const failed = await forEachFile(args.positionals, args, (spectra, file) => {
       for (const s of spectra) note(s, pathMm);
-      const fileRows = spectra.flatMap((s) =>
-        spectrumColour(s, {
-          illuminants,
-          observers,
-          reflection,
-          ...(pathMm === undefined ? {} : { pathMm }),
-        })
-      );
+      const options = {
+        illuminants,
+        observers,
+        reflection,
+        ...(pathMm === undefined ? {} : { pathMm }),
+      };
+      const fileRows = spectra.flatMap((s) => {
+        const plain = spectrumColour(s, options);
+        return uncertainty ? withColorUncertainty(plain, s, uncertainty, options, file) : plain;
+      });
       const s = spectra[0]!;
       const lo = s.wavelengthNm[0]!, hi = s.wavelengthNm[s.wavelengthNm.length - 1]!;
       if (lo > 380 || hi < 780) {
@@ -124,17 +141,23 @@ export const COLOR_COMMAND: CommandSpec = {
     });
     const records = rows as unknown as Record<string, unknown>[];
     if (format === "json") console.log(JSON.stringify(rows, null, 2));
-    else if (format === "csv") writeStdout(toCsv(records, [...COLOR_KEYS, ...COLOR_EXTRA_KEYS]));
-    else {
+    else if (format === "csv") {
+      writeStdout(toCsv(records, [
+        ...COLOR_KEYS,
+        ...COLOR_EXTRA_KEYS,
+        ...(uncertainty ? COLOR_UNCERTAINTY_COLUMNS : []),
+      ]));
+    } else {
       const shown = records.map((r) => {
         const o: Record<string, unknown> = {};
-        for (const c of [...COLOR_KEYS, "srgb"]) {
-          o[c] = round(r[c], ["x", "y"].includes(c) ? 4 : 2);
+        for (const c of [...COLOR_KEYS, "srgb", ...SHOWN_SD]) {
+          o[c] = round(r[c], ["x", "y"].includes(c) || SHOWN_SD.includes(c) ? 4 : 2);
         }
         if (r["srgbOutOfGamut"]) o["srgb"] = `${o["srgb"]}*`;
         return o;
       });
-      console.log(toTable(shown, [...COLOR_KEYS.filter((c) => c !== "file"), "srgb"]));
+      const sd = uncertainty ? SHOWN_SD : [];
+      console.log(toTable(shown, [...COLOR_KEYS.filter((c) => c !== "file"), "srgb", ...sd]));
       if (records.some((r) => r["srgbOutOfGamut"])) {
         console.log("* outside the sRGB gamut: the swatch is chroma-reduced");
       }
