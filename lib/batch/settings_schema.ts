@@ -61,7 +61,7 @@ export function defaultSettings(): BatchSettings {
   return {
     illuminants: ["D65", "A"],
     observers: ["2", "10"],
-    change: { from: "D65", to: "A", observer: "10", adapt: "none" },
+    change: { from: "D65", to: "A", observer: "2", adapt: "none" },
     reflection: "none",
     targets: {},
     calibrations: {},
@@ -91,7 +91,7 @@ function target(v: unknown, where: string): TargetSetting {
     throw new SettingsError(`Setting ${where} must be an object with L, a, b`);
   }
   const o = v as Record<string, unknown>;
-  const observer = String(o.observer ?? "10");
+  const observer = String(o.observer ?? "2");
   const toleranceDE00 = o.toleranceDE00 === undefined
     ? 2
     : num(o.toleranceDE00, `${where}.toleranceDE00`, true);
