@@ -18,7 +18,7 @@ async function json(...args: string[]) {
 }
 
 describe("every command gives the same stone the same L*a*b* under the same condition", () => {
-  it("color, series, change and pleochroism agree at D65, 2° (the default observer), 6 mm", async () => {
+  it("color, series, change, pleochroism and batch agree at D65, 2° (the default observer), 6 mm", async () => {
     const [color] = await json("color", stone, ...common, "--illuminant", "D65", "--json");
     expect(color.observer).toBe("2");
     const series = (await json(
@@ -54,6 +54,34 @@ describe("every command gives the same stone the same L*a*b* under the same cond
       });
     }
     expect(series.points[0].pathMm).toBe(6);
+    // batch, with the same stone, path and surfaces from its settings
+    const dir = await Deno.makeTempDir();
+    await Deno.writeTextFile(
+      `${dir}/lot.yaml`,
+      "illuminants: [D65]\npathMm: 6\nthicknessMm: 2\nreflection: host\nhost: corundum\n",
+    );
+    await Deno.mkdir(`${dir}/in`);
+    await Deno.copyFile(stone, `${dir}/in/stone.csv`);
+    const batch = await runCli(
+      "batch",
+      `${dir}/in`,
+      "--settings",
+      `${dir}/lot.yaml`,
+      "--out",
+      `${dir}/out`,
+      "--quiet",
+    );
+    expect(batch.code).toBe(0);
+    const results = JSON.parse(await Deno.readTextFile(`${dir}/out/results.json`));
+    const row = results.samples[0].colour.find((r: { illuminant: string; observer: string }) =>
+      r.illuminant === "D65" && r.observer === "2"
+    );
+    expect([row.L, row.a, row.b].map((v: number) => v.toFixed(6))).toEqual(
+      [color.L, color.a, color.b].map((v: number) => v.toFixed(6)),
+    );
+    // the batch's change uses the same default observer
+    expect(results.samples[0].change.observer).toBe("2");
+    expect(results.samples[0].change.dE00.toFixed(6)).toBe(change.dE00.toFixed(6));
   });
 
   it("with --reflection none, the same file as o and e gives unpolarised = o = color", async () => {
