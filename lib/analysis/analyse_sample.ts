@@ -1,6 +1,6 @@
 /**
  * The analysis of one sample, in named steps: optics → colour rows → change → series →
- * target → bands → dopant. Pure: no file system, so it runs in a worker or a notebook.
+ * target → bands → dopant → uncertainty (when asked for). Pure: no file system, so it runs in a worker or a notebook.
  *
  * @module
  */
@@ -15,6 +15,7 @@ import { targetStep } from "./target_step.ts";
 import { bandsStep } from "./bands_step.ts";
 import { dopantStep } from "./dopant_step.ts";
 import { thinTransmittance } from "./chart_curves.ts";
+import { uncertaintyStep } from "./uncertainty_step.ts";
 
 /** The host's name from the reflection settings, when one is set. */
 function hostName(s: SampleSettings): string | undefined {
@@ -49,6 +50,7 @@ export function analyseSample(
   const host = hostName(s);
   const bands = bandsStep(spectrum, host, warnings);
   const dopant = dopantStep(spectrum, bands.fit, s, warnings);
+  const uncertainty = uncertaintyStep(spectrum, s, change, target, warnings);
   return {
     sample: single && s.sampleName ? s.sampleName : spectrum.meta.sample,
     file,
@@ -67,6 +69,7 @@ export function analyseSample(
     plot: thinTransmittance(spectrum.wavelengthNm, t),
     dopant,
     bands: bands.result,
+    uncertainty,
   };
 }
 

@@ -10,6 +10,8 @@ import type { ThicknessSeries } from "../cie/thickness_series.ts";
 import type { TargetCheck } from "../dopant/target.ts";
 import type { BandFit } from "../bands/fit_bands.ts";
 import type { BandAssignment } from "../bands/assign_bands.ts";
+import type { TargetVerdict } from "../dopant/target_probability.ts";
+import type { UncertaintyResult } from "./uncertainty_step.ts";
 
 /** The colour change of a sample, with the swatches of both colours. */
 export interface ChangeResult extends ColourChange {
@@ -33,6 +35,10 @@ export interface TargetConditionCheck extends TargetCheck {
   b: number;
   /** The sample's colour under this illuminant. */
   measured: { L: number; a: number; b: number };
+  /** Probability that the true colour is within tolerance (with uncertainties on). */
+  passProbability?: number;
+  /** Verdict with guard bands (with uncertainties on). */
+  verdict?: TargetVerdict;
 }
 
 /** The target verdict over all its illuminants (pass and dE00 cover all of them). */
@@ -43,6 +49,8 @@ export interface TargetResult extends TargetConditionCheck {
   observer: string;
   /** One check per illuminant of the target. */
   checks: TargetConditionCheck[];
+  /** The decision rule of the verdict, in words (with uncertainties on). */
+  rule?: string;
 }
 
 /** The dopant level from a calibration. */
@@ -125,4 +133,6 @@ export interface SampleResult {
   dopant: DopantResult | null;
   /** Fitted bands, or null when the fit was not possible. */
   bands: BandsResult | null;
+  /** Standard uncertainties (k = 1), when the settings ask for them. */
+  uncertainty: UncertaintyResult | null;
 }

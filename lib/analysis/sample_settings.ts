@@ -7,6 +7,7 @@
 import type { ReadOptions } from "../io/read_spectra.ts";
 import type { ReflectionSettings } from "../optics/path_transmittance.ts";
 import type { Calibration } from "../dopant/linear_calibration.ts";
+import type { UncertaintySetting } from "./uncertainty_step.ts";
 
 /** A target colour under one illuminant. */
 export interface TargetColor {
@@ -92,4 +93,6 @@ export interface SampleSettings {
   polarisation?: string;
   /** Calibration to estimate the dopant level with, and its name. */
   calibration?: Calibration & { name: string };
+  /** Uncertainty sources; omitted: no uncertainties are computed. */
+  uncertainty?: UncertaintySetting;
 }

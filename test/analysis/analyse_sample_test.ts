@@ -110,3 +110,38 @@ describe("analyseSample", () => {
     expect(r.colour.length).toBe(4);
   });
 });
+
+describe("the uncertainty step", () => {
+  it("gives σ per colour row and guard-banded verdicts (JCGM 106 decision rule)", () => {
+    const base = analyseSample(slab(7), "s.csv", settings());
+    expect(base.uncertainty).toBeNull(); // off unless asked for
+    const d65 = base.colour.find((c) => c.illuminant === "D65" && c.observer === "2")!;
+    const target = (dL: number) => ({
+      L: d65.L + dL,
+      a: d65.a,
+      b: d65.b,
+      illuminant: "D65",
+      observer: "2",
+      toleranceDE00: 1,
+      also: [],
+      name: "t",
+    });
+    const u = { sources: { noiseSd: 0.002, thicknessSdMm: 0.02 } };
+    const on = analyseSample(slab(7), "s.csv", settings({ uncertainty: u, target: target(0) }));
+    expect(on.uncertainty!.rows.length).toBe(4);
+    for (const r of on.uncertainty!.rows) expect(r.LSd).toBeGreaterThan(0);
+    expect(on.uncertainty!.sources.noiseSource).toBe("given");
+    expect(on.uncertainty!.changeDE00Sd).toBeGreaterThan(0);
+    // on target, σ far below the tolerance: certainly a pass
+    expect(on.target!.verdict).toBe("pass");
+    // 5 units of L* away with a tolerance of 1: certainly a fail
+    const far = analyseSample(slab(7), "s.csv", settings({ uncertainty: u, target: target(5) }));
+    expect(far.target!.verdict).toBe("fail");
+    expect(far.target!.passProbability).toBeLessThan(0.05);
+    // ΔE00 at the tolerance: the probability sits near one half, so undecided
+    const sl = (L: number) => 1 + (0.015 * (L - 50) ** 2) / Math.sqrt(20 + (L - 50) ** 2);
+    const dL = 1 * sl(d65.L + 0.5); // ΔE00 = ΔL/S_L for a pure lightness step (Sharma et al.)
+    const edge = analyseSample(slab(7), "s.csv", settings({ uncertainty: u, target: target(dL) }));
+    expect(edge.target!.verdict).toBe("undecided");
+  });
+});
