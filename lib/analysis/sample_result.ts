@@ -11,7 +11,7 @@ import type { TargetCheck } from "../dopant/target.ts";
 import type { BandFit } from "../bands/fit_bands.ts";
 import type { BandAssignment } from "../bands/assign_bands.ts";
 import type { TargetVerdict } from "../dopant/target_probability.ts";
-import type { UncertaintyResult } from "./uncertainty_step.ts";
+import type { ResolvedUncertaintySources } from "../cie/color_uncertainty.ts";
 
 /** The colour change of a sample, with the swatches of both colours. */
 export interface ChangeResult extends ColourChange {
@@ -135,4 +135,36 @@ export interface SampleResult {
   bands: BandsResult | null;
   /** Standard uncertainties (k = 1), when the settings ask for them. */
   uncertainty: UncertaintyResult | null;
+}
+
+/** The uncertainty of one colour row. */
+export interface ColorRowUncertainty {
+  /** Illuminant of the row. */
+  illuminant: string;
+  /** Observer of the row. */
+  observer: string;
+  /** σ of L*. */
+  LSd: number;
+  /** σ of a*. */
+  aSd: number;
+  /** σ of b*. */
+  bSd: number;
+  /** σ of C*ab. */
+  CSd: number;
+  /** σ of h_ab in degrees; null where the hue is undefined (C* = 0). */
+  hSd: number | null;
+  /** Covariance of (L*, a*, b*), 3×3. */
+  labCovariance: number[][];
+}
+
+/** The uncertainties of a sample, with the sources they come from. */
+export interface UncertaintyResult {
+  /** One per colour row. */
+  rows: ColorRowUncertainty[];
+  /** σ of the colour change's ΔE00 (the two colours correlated). */
+  changeDE00Sd: number | null;
+  /** The sources used (noise given or estimated, and said so). */
+  sources: ResolvedUncertaintySources;
+  /** What the numbers leave out or could not include. */
+  notes: string[];
 }

@@ -7,7 +7,7 @@
 import type { ReadOptions } from "../io/read_spectra.ts";
 import type { ReflectionSettings } from "../optics/path_transmittance.ts";
 import type { Calibration } from "../dopant/linear_calibration.ts";
-import type { UncertaintySetting } from "./uncertainty_step.ts";
+import type { UncertaintySources } from "../cie/color_uncertainty.ts";
 
 /** A target colour under one illuminant. */
 export interface TargetColor {
@@ -95,4 +95,14 @@ export interface SampleSettings {
   calibration?: Calibration & { name: string };
   /** Uncertainty sources; omitted: no uncertainties are computed. */
   uncertainty?: UncertaintySetting;
+}
+
+/** What the uncertainty step is configured by. */
+export interface UncertaintySetting {
+  /** The sources; photometric noise is estimated from the spectrum when not given. */
+  sources: UncertaintySources;
+  /** Smallest pass probability that is a pass (default 0.95). */
+  passAt?: number;
+  /** Largest pass probability that is a fail (default 0.05). */
+  failAt?: number;
 }

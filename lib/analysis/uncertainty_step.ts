@@ -6,57 +6,11 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import {
-  type ResolvedUncertaintySources,
-  spectrumColorUncertainty,
-  type UncertaintySources,
-} from "../cie/color_uncertainty.ts";
+import { spectrumColorUncertainty } from "../cie/color_uncertainty.ts";
 import { colorChangeUncertainty } from "../cie/color_difference_uncertainty.ts";
 import { targetPassProbability, verdictRule } from "../dopant/target_probability.ts";
-import type { SampleSettings } from "./sample_settings.ts";
-import type { ChangeResult, TargetResult } from "./sample_result.ts";
-
-/** What the uncertainty step is configured by. */
-export interface UncertaintySetting {
-  /** The sources; photometric noise is estimated from the spectrum when not given. */
-  sources: UncertaintySources;
-  /** Smallest pass probability that is a pass (default 0.95). */
-  passAt?: number;
-  /** Largest pass probability that is a fail (default 0.05). */
-  failAt?: number;
-}
-
-/** The uncertainty of one colour row. */
-export interface ColorRowUncertainty {
-  /** Illuminant of the row. */
-  illuminant: string;
-  /** Observer of the row. */
-  observer: string;
-  /** σ of L*. */
-  LSd: number;
-  /** σ of a*. */
-  aSd: number;
-  /** σ of b*. */
-  bSd: number;
-  /** σ of C*ab. */
-  CSd: number;
-  /** σ of h_ab in degrees; null where the hue is undefined (C* = 0). */
-  hSd: number | null;
-  /** Covariance of (L*, a*, b*), 3×3. */
-  labCovariance: number[][];
-}
-
-/** The uncertainties of a sample, with the sources they come from. */
-export interface UncertaintyResult {
-  /** One per colour row. */
-  rows: ColorRowUncertainty[];
-  /** σ of the colour change's ΔE00 (the two colours correlated). */
-  changeDE00Sd: number | null;
-  /** The sources used (noise given or estimated, and said so). */
-  sources: ResolvedUncertaintySources;
-  /** What the numbers leave out or could not include. */
-  notes: string[];
-}
+import type { SampleSettings, UncertaintySetting } from "./sample_settings.ts";
+import type { ChangeResult, TargetResult, UncertaintyResult } from "./sample_result.ts";
 
 /**
  * Computes the uncertainties and adds pass probabilities and verdicts to the target (in
