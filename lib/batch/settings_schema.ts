@@ -181,7 +181,7 @@ function reportSettings(v: unknown): Partial<ReportHeader> {
   }
   if (o.date !== undefined && o.date !== null) {
     const d = o.date instanceof Date ? o.date.toISOString().slice(0, 10) : o.date;
-    if (typeof d !== "string" || d.length === 0 || d.length > 40) {
+    if (typeof d !== "string" || d.length === 0 || d.length > REPORT_TEXT_LIMIT) {
       throw new SettingsError("Setting report.date must be a date as text, e.g. 2026-12-02");
     }
     out.date = d;

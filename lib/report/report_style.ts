@@ -37,7 +37,8 @@ table.summary th[aria-sort="descending"]::after { content: " ▼"; }
 table.summary td { padding: 5px 8px; border-bottom: 1px solid #ebe5d8; vertical-align: middle; overflow-wrap: normal; }
 table.summary tbody tr:hover { background: #f1ece1; }
 table.summary tbody tr.open { background: #e8f0ef; }
-td.num { text-align: right; white-space: nowrap; }
+td.num, table.summary td:first-child { text-align: right; white-space: nowrap; }
+table.summary td:first-child { text-align: left; }
 .swatches { display: inline-flex; border: 1px solid #0002; border-radius: 3px; overflow: hidden; }
 .swatches span { display: inline-block; width: 26px; height: 18px; }
 .big .swatches span { width: 90px; height: 60px; }
@@ -73,7 +74,6 @@ figure { margin: 0; }
   .table-box { overflow: visible; }
   table.summary { font-size: 8pt; } table.summary th { padding: 3px 4px; } table.summary td { padding: 2px 4px; }
   table.summary tr { break-inside: avoid; }
-  table.summary td:first-child { white-space: nowrap; }
   .card.summary-card { break-inside: auto; }
   .lot-figures { display: grid; grid-template-columns: 1fr 1fr; gap: 8mm; break-inside: avoid; }
   .methods { font-size: 8.5pt; break-inside: auto; }
