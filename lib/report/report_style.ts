@@ -82,14 +82,15 @@ figure { margin: 0; }
   .stone-name { margin: 0 0 4mm; font-size: 15pt; }
   .stone-name small { font: 9pt sans-serif; color: var(--muted); margin-left: 4mm; }
   .stone-top { display: flex; gap: 6mm; align-items: flex-start; }
-  .lights { display: flex; flex-wrap: wrap; gap: 3mm; width: 62mm; flex: none; }
+  .lights { display: flex; flex-wrap: wrap; gap: 2.5mm; width: 70mm; flex: none; }
   .light { text-align: center; font-size: 8pt; }
-  .light .swatch { display: block; width: 18mm; height: 13mm; border: 1px solid #0003; border-radius: 2px; }
+  .light .swatch { display: block; width: 15mm; height: 12mm; border: 1px solid #0003; border-radius: 2px; }
   table.numbers { border-collapse: collapse; font-size: 8.5pt; font-variant-numeric: tabular-nums; flex: 1; }
   table.numbers th, table.numbers td { padding: 1px 5px; border-bottom: 1px solid #e4ded0; text-align: right; }
   table.numbers th:first-child, table.numbers td:first-child { text-align: left; }
   table.bands td:last-child, table.bands th:last-child { text-align: left; }
   .stone dl.facts { margin: 3mm 0; font-size: 9pt; }
+  .stone .legend { margin: 0 0 3mm; }
   .stone-charts { display: grid; grid-template-columns: 1fr 1fr; gap: 3mm 6mm; }
   .stone-charts svg.plot { max-height: 60mm; }
   * { -webkit-print-color-adjust: exact; print-color-adjust: exact; }

@@ -65,7 +65,7 @@ function facts(row: ReportRow, d: ReportDetail): string {
   ]);
   if (row.target) {
     items.push([
-      `target ${row.target.name}`,
+      row.target.name === "target" ? "target" : `target ${row.target.name}`,
       `${row.target.pass ? "pass" : "fail"} (ΔE00 ${n(row.target.dE00, 2)}; ${row.target.words})`,
     ]);
   }
@@ -162,6 +162,7 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
           points: [[p.x, p.y]] as [number, number][],
           color: lightColor(p.illuminant, row.from, row.to),
           kind: "points" as const,
+          size: 4.5,
           label: `under ${p.illuminant}`,
         })),
       ],

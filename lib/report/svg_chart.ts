@@ -178,15 +178,23 @@ export function svgChart(plot: SvgPlot): string {
       );
     }
   }
-  const legend = plot.series.filter((s) => s.label).map((s, i) => {
-    const lx = left + (i % 2) * (iw / 2 + 4), ly = top + ih + 41 + Math.floor(i / 2) * 12;
+  // legend items flow left to right and wrap (label width estimated at 5.3 px per character)
+  const legend: string[] = [];
+  let lx = left, ly = top + ih + 41;
+  for (const s of plot.series.filter((s) => s.label)) {
+    const width = 18 + s.label!.length * 5.3 + 12;
+    if (lx > left && lx + width > W - 4) {
+      lx = left;
+      ly += 12;
+    }
     const mark = s.kind === "points"
       ? `<circle cx="${f(lx + 6)}" cy="${f(ly - 3.5)}" r="3.5" fill="${e(s.color)}"/>`
       : `<line x1="${f(lx)}" x2="${f(lx + 12)}" y1="${f(ly - 3.5)}" y2="${f(ly - 3.5)}" stroke="${
         e(s.color)
       }" stroke-width="2"${s.dash ? ` stroke-dasharray="${e(s.dash)}"` : ""}/>`;
-    return `${mark}<text x="${f(lx + 16)}" y="${f(ly)}">${e(s.label)}</text>`;
-  });
+    legend.push(`${mark}<text x="${f(lx + 16)}" y="${f(ly)}">${e(s.label)}</text>`);
+    lx += width;
+  }
   return `<svg class="plot" viewBox="0 0 ${W} ${H}" role="img" aria-label="${
     e(plot.title)
   }" xmlns="http://www.w3.org/2000/svg"><defs>${clip}</defs>${parts.join("")}` +
