@@ -55,6 +55,9 @@ export async function printPdf(
       }); install it (Debian: apt-get install chromium) or name it with --chromium PATH`,
     );
   }
+  if (options.chromium && !findChromium([options.chromium])) {
+    throw new SettingsError(`No Chromium at ${options.chromium} (give the browser's program file)`);
+  }
   const allowed = await Deno.permissions.query({ name: "run", command: chromium });
   if (allowed.state !== "granted") {
     throw new SettingsError(
