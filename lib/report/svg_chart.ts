@@ -74,7 +74,7 @@ export function paddedRange(values: number[], pad = 0.05): [number, number] {
 }
 
 /** At most `n` points of a line, evenly picked (the printed line cannot show more). */
-export function thinPoints(points: [number, number][], n = 300): [number, number][] {
+export function thinPoints(points: [number, number][], n = 200): [number, number][] {
   if (points.length <= n) return points;
   const out: [number, number][] = [];
   for (let i = 0; i < n; i++) out.push(points[Math.round((i * (points.length - 1)) / (n - 1))]!);
