@@ -5,6 +5,7 @@
  */
 import { type ColourRow, spectrumColour } from "../lib/cie/spectrum_colour.ts";
 import type { CommandSpec } from "./_command.ts";
+import { MARKS } from "../lib/report/marks.ts";
 import {
   EXIT,
   listOption,
@@ -153,13 +154,13 @@ export const COLOR_COMMAND: CommandSpec = {
         for (const c of [...COLOR_KEYS, "srgb", ...SHOWN_SD]) {
           o[c] = round(r[c], ["x", "y"].includes(c) || SHOWN_SD.includes(c) ? 4 : 2);
         }
-        if (r["srgbOutOfGamut"]) o["srgb"] = `${o["srgb"]}*`;
+        if (r["srgbOutOfGamut"]) o["srgb"] = `${o["srgb"]} ${MARKS.outOfGamut.symbol}`;
         return o;
       });
       const sd = uncertainty ? SHOWN_SD : [];
       console.log(toTable(shown, [...COLOR_KEYS.filter((c) => c !== "file"), "srgb", ...sd]));
       if (records.some((r) => r["srgbOutOfGamut"])) {
-        console.log("* outside the sRGB gamut: the swatch is chroma-reduced");
+        console.log(`${MARKS.outOfGamut.symbol} ${MARKS.outOfGamut.text}`);
       }
     }
     return failed > 0 ? EXIT.someFailed : EXIT.ok;

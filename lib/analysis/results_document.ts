@@ -39,6 +39,24 @@ export interface ResultsError {
   line?: number | null;
 }
 
+/** Who the report is for and what it says about itself (the settings' `report:` block). */
+export interface ReportHeader {
+  /** Report title (default: "Colour report"). */
+  title?: string;
+  /** Laboratory or workshop issuing the report. */
+  lab?: string;
+  /** Client the report is for. */
+  client?: string;
+  /** Person who measured. */
+  operator?: string;
+  /** Free note shown under the title. */
+  note?: string;
+  /** Report date as written (default: the run's date, YYYY-MM-DD, recorded so re-renders match). */
+  date: string;
+  /** `internal` shows the full workshop cautions; `client` the short measurement caution only. */
+  audience: "internal" | "client";
+}
+
 /** The header of a results document: everything but the samples and the errors. */
 export interface ResultsHeader {
   /** crystint version that computed the results. */
@@ -51,6 +69,8 @@ export interface ResultsHeader {
   calibrations: CalibrationSummary[];
   /** Charts are embedded for at most this many samples. */
   detailLimit: number;
+  /** Title, lab, client, date and audience of the report (absent in older results files). */
+  report?: ReportHeader;
 }
 
 /** The whole results document. */

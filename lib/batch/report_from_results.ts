@@ -4,11 +4,27 @@
  *
  * @module
  */
-import type { ResultsDocument } from "../analysis/results_document.ts";
+import type { ReportHeader, ResultsDocument } from "../analysis/results_document.ts";
 import { renderResults } from "../report/report_input.ts";
 import { readChartBundle } from "./chart_bundle.ts";
 import { writeTextAtomic } from "./atomic_write.ts";
 import { SettingsError } from "./settings_schema.ts";
+
+/** The report block of a results file, keeping only text fields of the known names. */
+function reportHeaderOf(v: unknown): ReportHeader | undefined {
+  if (!v || typeof v !== "object") return undefined;
+  const o = v as Record<string, unknown>;
+  const text = (k: string) => (typeof o[k] === "string" ? { [k]: o[k] as string } : {});
+  return {
+    ...text("title"),
+    ...text("lab"),
+    ...text("client"),
+    ...text("operator"),
+    ...text("note"),
+    date: typeof o.date === "string" ? o.date : "",
+    audience: o.audience === "client" ? "client" : "internal",
+  };
+}
 
 /** Checks the shape of a parsed results document. */
 function checkResults(parsed: unknown, resultsPath: string): ResultsDocument {
@@ -28,6 +44,7 @@ function checkResults(parsed: unknown, resultsPath: string): ResultsDocument {
       : {},
     calibrations: Array.isArray(doc.calibrations) ? doc.calibrations : [],
     detailLimit: typeof doc.detailLimit === "number" ? doc.detailLimit : 2000,
+    ...(doc.report ? { report: reportHeaderOf(doc.report)! } : {}),
     samples: doc.samples,
     errors: doc.errors,
     manifest: Array.isArray(doc.manifest) ? doc.manifest : [],

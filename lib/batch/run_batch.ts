@@ -103,6 +103,11 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
     settingsSummary: settingsSummary(settings),
     calibrations: calibrationSummaries(calibrations),
     detailLimit: options.detailLimit ?? 2000,
+    report: {
+      audience: "internal",
+      ...settings.report,
+      date: settings.report?.date ?? new Date().toISOString().slice(0, 10),
+    },
   };
   async function* cachedResults() {
     for (const o of computed.outcomes) {

@@ -13,6 +13,7 @@ import type {
   TargetColor,
   TargetSetting,
 } from "../analysis/sample_settings.ts";
+import type { ReportHeader } from "../analysis/results_document.ts";
 
 export type { TargetColor, TargetSetting };
 
@@ -46,6 +47,8 @@ export interface BatchSettings {
   calibration?: string;
   /** Named calibration files the manifest's `calibration` column may refer to. */
   calibrations: Record<string, string>;
+  /** Report title, lab, client, operator, note, date and audience; date defaults to the run's. */
+  report?: Partial<ReportHeader>;
 }
 
 /** A problem with the settings file (a usage error, exit code 1). */
@@ -148,6 +151,50 @@ function check(f: () => unknown, where: string) {
   }
 }
 
+/** Longest title, lab, client or operator text (the note may be longer). */
+const REPORT_TEXT_LIMIT = 200;
+const REPORT_NOTE_LIMIT = 2000;
+
+function reportSettings(v: unknown): Partial<ReportHeader> {
+  if (!v || typeof v !== "object" || Array.isArray(v)) {
+    throw new SettingsError("Setting report must be a mapping (title, lab, client, …)");
+  }
+  const o = v as Record<string, unknown>;
+  const out: Partial<ReportHeader> = {};
+  for (const k of Object.keys(o)) {
+    if (!["title", "lab", "client", "operator", "note", "date", "audience"].includes(k)) {
+      throw new SettingsError(`Unknown setting "report.${k}"`);
+    }
+  }
+  for (const k of ["title", "lab", "client", "operator", "note"] as const) {
+    const x = o[k];
+    if (x === undefined || x === null) continue;
+    if (typeof x !== "string" && typeof x !== "number") {
+      throw new SettingsError(`Setting report.${k} must be text`);
+    }
+    const text = String(x);
+    const limit = k === "note" ? REPORT_NOTE_LIMIT : REPORT_TEXT_LIMIT;
+    if (text.length > limit) {
+      throw new SettingsError(`Setting report.${k} must be at most ${limit} characters`);
+    }
+    out[k] = text;
+  }
+  if (o.date !== undefined && o.date !== null) {
+    const d = o.date instanceof Date ? o.date.toISOString().slice(0, 10) : o.date;
+    if (typeof d !== "string" || d.length === 0 || d.length > REPORT_TEXT_LIMIT) {
+      throw new SettingsError("Setting report.date must be a date as text, e.g. 2026-12-02");
+    }
+    out.date = d;
+  }
+  if (o.audience !== undefined) {
+    if (o.audience !== "internal" && o.audience !== "client") {
+      throw new SettingsError("Setting report.audience must be internal or client");
+    }
+    out.audience = o.audience;
+  }
+  return out;
+}
+
 /**
  * Validates a settings object (from JSON or YAML) on top of the defaults.
  *
@@ -179,6 +226,7 @@ export function resolveSettings(raw: unknown): BatchSettings {
     "calibrations",
     "changeMinChroma",
     "sellmeier",
+    "report",
   ]);
   for (const k of Object.keys(o)) {
     if (!known.has(k)) throw new SettingsError(`Unknown setting "${k}"`);
@@ -267,6 +315,7 @@ export function resolveSettings(raw: unknown): BatchSettings {
       s.calibrations[name] = String(path);
     }
   }
+  if (o.report !== undefined) s.report = reportSettings(o.report);
   if (o.changeHueThresholdDeg !== undefined) {
     s.changeHueThresholdDeg = num(o.changeHueThresholdDeg, "changeHueThresholdDeg", true);
   }

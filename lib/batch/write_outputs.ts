@@ -52,10 +52,11 @@ export async function writeOutputs(
   const builder = new ReportInputBuilder(header);
   let samples = 0;
   async function* jsonChunks() {
-    const { version, settings, settingsSummary, calibrations, detailLimit } = header;
+    const { version, settings, settingsSummary, calibrations, detailLimit, report } = header;
     yield `{"version":${JSON.stringify(version)},"settings":${JSON.stringify(settings)},` +
       `"settingsSummary":${JSON.stringify(settingsSummary)},` +
-      `"calibrations":${JSON.stringify(calibrations)},"detailLimit":${detailLimit},"samples":[`;
+      `"calibrations":${JSON.stringify(calibrations)},"detailLimit":${detailLimit},` +
+      `${report ? `"report":${JSON.stringify(report)},` : ""}"samples":[`;
     let first = true;
     for await (const result of results()) {
       yield `${first ? "" : ","}\n${JSON.stringify(result)}`;

@@ -7,3 +7,4 @@ export * from "./escape.ts";
 export * from "./report_data.ts";
 export * from "./report_input.ts";
 export * from "./render_report.ts";
+export * from "./marks.ts";

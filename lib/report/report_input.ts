@@ -8,6 +8,7 @@
 import type { SampleResult } from "../analysis/sample_result.ts";
 import type { ResultsError, ResultsHeader } from "../analysis/results_document.ts";
 import {
+  fileLabel,
   locusForReport,
   type ReportCalibration,
   type ReportDetail,
@@ -30,6 +31,7 @@ export class ReportInputBuilder {
   #samples = 0;
   #targeted = 0;
   #passed = 0;
+  #observers = new Set<string>();
 
   /** @param header The results header (settings summary, calibrations, limits). */
   constructor(header: ResultsHeader) {
@@ -39,6 +41,7 @@ export class ReportInputBuilder {
   /** Adds the next sample result, in results order. */
   add(result: SampleResult): void {
     const index = this.#samples++;
+    for (const row of result.colour) this.#observers.add(row.observer);
     if (index < ROW_LIMIT) this.#rows.push(reportRow(result, index));
     if (index < this.#header.detailLimit) this.#details[index] = reportDetail(result);
     if (result.target) {
@@ -61,19 +64,33 @@ export class ReportInputBuilder {
       ...c,
       samples: this.#placed.get(c.name) ?? [],
     }));
+    const xyObserver = this.#observers.has("2") || this.#observers.size === 0
+      ? "2"
+      : [...this.#observers].sort()[0]!;
     return {
       version: this.#header.version,
+      report: this.#header.report ?? null,
       settingsSummary: this.#header.settingsSummary,
       rows: this.#rows,
       totals: { samples: this.#samples, targeted: this.#targeted, passed: this.#passed },
       details: this.#details,
       detailLimit: this.#header.detailLimit,
-      errors: errors.map(({ file, message }) => ({ file, message })),
+      errors: errors.map(({ file, message }) => ({
+        file: fileLabel(file),
+        message: withoutFolders(message, file),
+      })),
       manifestNotes,
-      locus: locusForReport(),
+      loci: { [xyObserver]: locusForReport(xyObserver) },
+      xyObserver,
       calibrations,
     };
   }
+}
+
+/** A message with the folders of its file removed (the page names files by name alone). */
+function withoutFolders(message: string, file: string): string {
+  const cut = Math.max(file.lastIndexOf("/"), file.lastIndexOf("\\"));
+  return cut < 0 ? message : message.split(file.slice(0, cut + 1)).join("");
 }
 
 /** Renders the page of a whole results document (what `crystint report` does). */
