@@ -53,8 +53,14 @@ export function log(message: string): void {
 
 /** Reports a failed input on stderr in the `file:line: problem` form. */
 export function reportFailure(error: unknown, file: string): void {
-  if (error instanceof InputError) log(`crystint: ${error.message}`);
-  else log(`crystint: ${file}: ${(error as Error).message ?? String(error)}`);
+  if (error instanceof InputError) {
+    const hint = error.hint
+      ? ` (give --${error.hint.need}${
+        error.hint.choices ? ` ${error.hint.choices.join("|")}` : ""
+      })`
+      : "";
+    log(`crystint: ${error.message}${hint}`);
+  } else log(`crystint: ${file}: ${(error as Error).message ?? String(error)}`);
 }
 
 /** Rounds for display or CSV without losing what the measurement supports. */

@@ -7,6 +7,7 @@
 import { axisFromText, ordinateFromText } from "../lib/io/header_units.ts";
 import type { ReadOptions } from "../lib/io/read_spectra.ts";
 import { readSpectrumFile } from "../lib/io/read_file.ts";
+import { readerWarnings } from "../lib/io/reader_warnings.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
 import { getHost, parseSellmeier } from "../lib/optics/refractive_index.ts";
 import type { ReflectionSettings } from "../lib/optics/path_transmittance.ts";
@@ -161,9 +162,7 @@ export async function forEachFile(
   for (const file of files) {
     try {
       const spectra = await readSpectrumFile(file, options);
-      for (const s of spectra) {
-        for (const w of s.meta.warnings ?? []) log(`crystint: ${file}: ${s.meta.sample}: ${w}`);
-      }
+      for (const w of readerWarnings(spectra)) log(`crystint: ${file}: ${w}`);
       each(spectra, file);
     } catch (e) {
       failed++;

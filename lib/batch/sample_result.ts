@@ -177,7 +177,10 @@ function resultFor(
   const spectrum = measured.thicknessMm === undefined && s.fallbackThicknessMm !== undefined
     ? { ...measured, thicknessMm: s.fallbackThicknessMm }
     : measured;
-  const warnings = [...(spectrum.meta.warnings ?? [])];
+  const warnings = [
+    ...(spectrum.meta.fileWarnings ?? []).map((w) => w.message),
+    ...(spectrum.meta.warnings ?? []),
+  ];
   const { values: t, warnings: opticsWarnings } = transmittanceForPath(
     spectrum,
     s.pathMm,

@@ -12,3 +12,6 @@ export * from "./read_spectra.ts";
 export * from "./read_jcamp.ts";
 export * from "./read_file.ts";
 export * from "./parse_sheet.ts";
+export * from "./read_limits.ts";
+export * from "./read_metadata.ts";
+export * from "./reader_warnings.ts";

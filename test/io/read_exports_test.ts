@@ -119,8 +119,8 @@ describe("rejecting bad input with the specific error", () => {
     ["duplicate_x.csv", "duplicate-x", 12, /Duplicate x value 405 \(also at line 11\)/],
     ["non_monotonic.csv", "non-monotonic", 12, /300 breaks the ascending order/],
     ["too_few_points.csv", "too-few-points", 2, /at least 5/],
-    ["t_out_of_range.csv", "out-of-range", 2, /--ordinate percent/],
-    ["no_header_ambiguous.csv", "ambiguous-ordinate", 1, /--ordinate/],
+    ["t_out_of_range.csv", "out-of-range", 2, /if the values are percent/],
+    ["no_header_ambiguous.csv", "ambiguous-ordinate", 1, /needs to be stated/],
     ["ragged_row.csv", "malformed", 10, /3 fields/],
     ["npoints_mismatch.jdx", "malformed", 8, /NPOINTS says 12/],
   ];
@@ -134,10 +134,21 @@ describe("rejecting bad input with the specific error", () => {
       expect((error as InputError).message.startsWith(dir("bad") + name)).toBe(true);
     });
   }
-  it("ambiguous_axis.csv: an x axis that could be µm or eV asks for --axis", async () => {
+  it("ambiguous_axis.csv: an x axis that could be µm or eV asks for the axis unit", async () => {
     const error = await read("bad", "ambiguous_axis.csv").then(() => undefined, (e) => e);
     expect((error as InputError).problem).toBe("ambiguous-axis");
-    expect((error as InputError).message).toMatch(/--axis/);
+    expect((error as InputError).hint).toEqual({
+      need: "axis",
+      choices: ["nm", "um", "cm-1", "ev"],
+    });
+    expect((error as InputError).message).not.toMatch(/--/);
+  });
+  it("the ordinate and percent hints are machine-readable, not CLI flags", async () => {
+    const ordinate = await read("bad", "no_header_ambiguous.csv").then(() => undefined, (e) => e);
+    expect((ordinate as InputError).hint?.need).toBe("ordinate");
+    const percent = await read("bad", "t_out_of_range.csv").then(() => undefined, (e) => e);
+    expect((percent as InputError).hint).toEqual({ need: "ordinate", choices: ["percent"] });
+    for (const e of [ordinate, percent]) expect((e as InputError).message).not.toMatch(/--/);
   });
   it("a missing file is reported as unreadable", async () => {
     const error = await read("bad", "no_such_file.csv").then(() => undefined, (e) => e);
