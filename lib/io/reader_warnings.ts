@@ -30,7 +30,7 @@ export function readerWarnings(spectra: readonly Spectrum[]): string[] {
   const groups = new Map<string, number>();
   for (const s of noted) {
     for (const w of s.meta.warnings!) {
-      const kind = w.replace(/\d+(\.\d+)?/g, "N");
+      const kind = w.replace(/^\d+\s+/, ""); // "2 value(s) …" and "5 value(s) …" are one kind
       groups.set(kind, (groups.get(kind) ?? 0) + 1);
     }
   }
