@@ -178,24 +178,60 @@ describe("totality: any bytes give spectra or an InputError", () => {
         for (const [at, byte] of edits) copy[at] = byte;
         return copy;
       });
+    // text edits that produce overflowing numbers, huge repeat counts and odd cells
+    const poison = fc.constantFrom(
+      "1e309",
+      "-1e309",
+      "1e99999",
+      "Infinity",
+      "-inf",
+      "NaN",
+      "S99999999999",
+      "A99999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999",
+      "##YFACTOR=1e308\n",
+      "##NPOINTS=1e12\n",
+      "-50",
+      ",,",
+      '"',
+    );
+    const inject = (base: Uint8Array) =>
+      fc.array(fc.tuple(fc.nat(base.length - 1), poison), { minLength: 1, maxLength: 3 }).map(
+        (edits) => {
+          let text = new TextDecoder().decode(base);
+          for (const [at, piece] of edits) {
+            const i = at % text.length;
+            text = text.slice(0, i) + piece + text.slice(i + (piece.length % 4));
+          }
+          return new TextEncoder().encode(text);
+        },
+      );
     fc.assert(
       fc.property(
         fc.oneof(
           fc.uint8Array({ maxLength: 400 }),
           mutate(seed),
           mutate(jcamp),
+          inject(seed),
+          inject(jcamp),
           fc.string({ maxLength: 300 }).map((s) => new TextEncoder().encode(s)),
         ),
         (bytes) => {
           try {
             const spectra = readSpectraFromBytes(bytes, "fuzz.csv");
-            for (const s of spectra) expect(s.values.every(Number.isFinite)).toBe(true);
+            for (const s of spectra) {
+              expect(s.values.every(Number.isFinite)).toBe(true);
+              expect(s.wavelengthNm.every((v) => Number.isFinite(v) && v > 0)).toBe(true);
+              if (s.quantity === "transmittance") {
+                expect(s.values.every((v) => v >= 0 && v <= 1)).toBe(true);
+              }
+              if (s.quantity === "absorbance") expect(s.values.every((v) => v >= -0.3)).toBe(true);
+            }
           } catch (e) {
             if (!(e instanceof InputError)) throw e;
           }
         },
       ),
-      { numRuns: 400, seed: 20261202 },
+      { numRuns: 1500, seed: 20261202 },
     );
   });
 });
