@@ -25,11 +25,42 @@ function writeBenchFile(): string {
   return path;
 }
 
+/** Peak resident memory of this process in bytes (Linux `VmHWM`), or undefined elsewhere. */
+function peakRss(): number | undefined {
+  try {
+    const kb = /VmHWM:\s+(\d+) kB/.exec(Deno.readTextFileSync("/proc/self/status"))?.[1];
+    return kb ? Number(kb) * 1024 : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+if (Deno.args[0] === "--child") {
+  // child process: one read of the file, then its time and peak memory as JSON on stdout
+  const t0 = performance.now();
+  const spectra = await readSpectrumFile(Deno.args[1]!);
+  console.log(JSON.stringify({ ms: performance.now() - t0, n: spectra.length, peak: peakRss() }));
+  Deno.exit(0);
+}
+
 const path = writeBenchFile();
-addEventListener(
-  "unload",
-  () => Deno.removeSync(path.replace(/\/[^/]+$/, ""), { recursive: true }),
-);
+{
+  // one read in a fresh process, to report peak memory beside the input size
+  // (issue 13's goal: peak RSS ≤ 3× the input size for the whole colour run)
+  const out = await new Deno.Command(Deno.execPath(), {
+    // Deno grants /proc/self/status (for the peak) only with all permissions
+    args: ["run", "--allow-all", new URL(import.meta.url).pathname, "--child", path],
+    stdout: "piped",
+    stderr: "inherit",
+  }).output();
+  const r = JSON.parse(new TextDecoder().decode(out.stdout));
+  const mb = (n: number) => (n / 1048576).toFixed(0);
+  console.log(
+    `fresh process: read ${r.n} spectra in ${r.ms.toFixed(0)} ms; file ${
+      mb(Deno.statSync(path).size)
+    } MB, peak RSS ${r.peak ? `${mb(r.peak)} MB` : "not measurable here"}`,
+  );
+}
 
 Deno.bench("read 10,000 × 401 CSV from disk, automatic reader", {
   group: "read",

@@ -262,8 +262,10 @@ export function spectraFromTable(
     }
     const { quantity, scale } = toQuantity(kind);
     let clipped = 0;
-    const values = new Float64Array(rows);
     const bounded = quantity === "transmittance" || quantity === "reflectance";
+    // the column itself serves as the values when nothing changes them (saves a copy per spectrum)
+    const asIs = !descending && scale === 1 && !(bounded && outsideUnit(column));
+    const values = asIs ? column : new Float64Array(rows);
     for (let k = 0; k < rows; k++) {
       const i = order[k]!;
       const shown = column[i]!;
@@ -294,7 +296,7 @@ export function spectraFromTable(
           `Absorbance ${shown} is below ${MIN_ABSORBANCE}, beyond any baseline noise (T would exceed 1)`,
         );
       }
-      values[k] = v;
+      if (!asIs) values[k] = v;
     }
     const multi = width > 2;
     const sample = reading.name ?? (multi ? undefined : sampleField) ??
@@ -333,6 +335,15 @@ export function spectraFromTable(
   }
   Object.freeze(fileWarnings);
   return spectra;
+}
+
+/** Whether any value lies outside 0..1 (and would be clipped or refused). */
+function outsideUnit(values: ArrayLike<number>): boolean {
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]!;
+    if (v < 0 || v > 1) return true;
+  }
+  return false;
 }
 
 /** A value as the file states it. */
