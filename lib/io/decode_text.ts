@@ -40,8 +40,11 @@ export function decodeText(bytes: Uint8Array, file: string): string {
   // control characters other than tab, LF, FF, CR, and replacement characters (one regex
   // scan: a loop over a 30 MB string costs several times more)
   // deno-lint-ignore no-control-regex
-  const control = text.match(/[\x00-\x08\x0b\x0e-\x1f\ufffd]/g)?.length ?? 0;
-  if (control > Math.max(4, text.length * 0.01)) {
+  const controlChar = /[\x00-\x08\x0b\x0e-\x1f\ufffd]/g;
+  const tolerated = Math.max(4, text.length * 0.01);
+  let control = 0;
+  while (controlChar.exec(text) !== null && ++control <= tolerated);
+  if (control > tolerated) {
     throw new InputError(
       "binary",
       file,

@@ -57,14 +57,17 @@ function findField(fields: Record<string, string>, pattern: RegExp): string | un
   return key === undefined ? undefined : fields[key];
 }
 
-/** The ordinate named by any preamble line that talks about it (the first one that reads). */
+/** Keys of preamble lines that may name the ordinate. */
 const ORDINATE_KEYS = /y\s*-?\s*units?|ordinate|data\s*type|quantity|mode|measurement/i;
 
-function ordinateFromFields(fields: Record<string, string>): OrdinateKind | undefined {
-  for (const [k, v] of Object.entries(fields)) {
-    if (!ORDINATE_KEYS.test(k)) continue;
+/** The ordinate named by any preamble line that talks about it (the first one that reads). */
+function ordinateFromFields(
+  fields: Record<string, string>,
+): { kind: OrdinateKind; key: string } | undefined {
+  for (const [key, v] of Object.entries(fields)) {
+    if (!ORDINATE_KEYS.test(key)) continue;
     const kind = ordinateFromText(v);
-    if (kind) return kind;
+    if (kind) return { kind, key };
   }
   return undefined;
 }
@@ -174,7 +177,8 @@ export function spectraFromTable(
     axis = inferAxis(xs, file, headerLine ?? rowLines[0], fileWarnings);
     fileAxis = fileValue(axis, "range", undefined, undefined);
   }
-  const fieldOrdinate = ordinateFromFields(table.fields);
+  const ordinateField = ordinateFromFields(table.fields);
+  const fieldOrdinate = ordinateField?.kind;
   const metadata = readFileMetadata(table.fields, table.fieldLines);
   fileWarnings.push(...metadata.warnings);
   const thicknessMm = options.thicknessMm ?? metadata.thicknessMm?.value;
@@ -232,7 +236,6 @@ export function spectraFromTable(
   }
   const wavelengthNm = new Float64Array(rows);
   for (let k = 0; k < rows; k++) wavelengthNm[k] = nm[order[k]!]!;
-  const fieldOrdinateAt = fieldOrdinate ? fieldLine(ORDINATE_KEYS) : undefined;
   const spectra: Spectrum[] = [];
   let ordinateConflict = false;
   for (let c = 1; c < width; c++) {
@@ -242,7 +245,12 @@ export function spectraFromTable(
     const fileOrdinate = reading.ordinate
       ? fileValue(reading.ordinate, "header", header![c]!, headerLine)
       : fieldOrdinate
-      ? fileValue(fieldOrdinate, "field", fieldOrdinateAt?.key, fieldOrdinateAt?.line)
+      ? fileValue(
+        fieldOrdinate,
+        "field",
+        ordinateField!.key,
+        table.fieldLines?.[ordinateField!.key],
+      )
       : undefined;
     if (reading.ordinate && fieldOrdinate && reading.ordinate !== fieldOrdinate) {
       ordinateConflict = true;

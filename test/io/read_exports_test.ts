@@ -99,6 +99,17 @@ describe("reading well-formed exports of many layouts", () => {
     const s = await expectTruth("stone.jdx", 1e-4);
     expect(s.meta.sample).toBe("spinel-12");
   });
+  it("the metadata layouts (meta_*) read the same curve", async () => {
+    for (
+      const f of [
+        "meta_tab_after_colon.csv",
+        "meta_in_comments.csv",
+        "meta_brackets_tab.txt",
+        "meta_semicolon_decimal_comma.csv",
+        "meta_equals_cm_footer.txt",
+      ]
+    ) expect((await expectTruth(f)).wavelengthNm.length).toBe(95);
+  });
   it("--ordinate and --axis override what the file says", async () => {
     const [s] = await read("bad", "no_header_ambiguous.csv", {
       ordinate: "transmittance",

@@ -127,6 +127,26 @@ describe("metadata read from each invented layout (fixtures in test/fixtures/exp
     expect(s.meta.sources?.axis).toBe("option");
     expect(s.meta.fileValues?.thicknessMm?.value).toBe(1.5);
   });
+  it("the ordinate's provenance: a preamble line, or the column header", async () => {
+    const field = await read("preamble_mode_trailing_delimiter.csv");
+    expect(field.meta.fileValues?.ordinate).toEqual({
+      value: "percent",
+      source: "file",
+      how: "field",
+      key: "Data mode",
+      line: 3,
+    });
+    const header = await read("comma_header.csv");
+    expect(header.meta.fileValues?.ordinate).toEqual({
+      value: "transmittance",
+      source: "file",
+      how: "header",
+      key: "T",
+      line: 1,
+    });
+    const option = await read("comma_header.csv", { ordinate: "transmittance" });
+    expect(option.meta.sources?.ordinate).toBe("option");
+  });
   it("the existing preamble fixture still reads its verbatim fields", async () => {
     const s = await read("preamble_metadata.csv");
     expect(s.meta.fields?.["Scan speed"]).toBe("medium");
