@@ -149,7 +149,10 @@ export function readTextTable(
   const comments: string[] = [];
   const lines: Line[] = [];
   for (const l of all) {
-    if (isComment(l.text)) {
+    const c0 = l.text.charCodeAt(0);
+    if ((c0 >= 48 && c0 <= 57) || c0 === 45 || c0 === 43 || c0 === 46) {
+      lines.push(l); // a digit, sign or point first: neither a comment nor blank (most lines)
+    } else if (isComment(l.text)) {
       comments.push(l.text.replace(/^\s*#\s?/, ""));
       metadata.push({ line: l, comment: true });
     } else if (l.text.trim() !== "") lines.push(l);
