@@ -47,6 +47,14 @@ const SPACE = 32, TAB = 9, PLUS = 43, MINUS = 45, DOT = 46, COMMA = 44, ZERO = 4
  * @param decimalComma Whether `,` is accepted as the decimal mark (never with a comma delimiter).
  * @returns false, writing nothing useful, for any line the general reader must judge: quotes,
  *   other characters, empty or missing cells, more than 15 significant digits, large exponents.
+ *
+ * @example One semicolon-separated line with decimal commas
+ * ```ts
+ * import { parseNumericLine } from "./parse_numeric_line.ts";
+ * const columns = [new Float64Array(1), new Float64Array(1)];
+ * if (!parseNumericLine("360,0;76,821", 59, true, columns, 0)) throw new Error("declined");
+ * if (columns[1]![0] !== Number("76.821")) throw new Error(String(columns[1]![0]));
+ * ```
  */
 export function parseNumericLine(
   line: string,

@@ -18,6 +18,13 @@ const SEPARATORS = new Set([":", "=", ";", ",", "\t"]);
 /**
  * Splits one preamble, comment or footer line into key and value; undefined for a line
  * without a separator (kept verbatim by the caller). A `#` comment mark is dropped first.
+ *
+ * @example A unit in parentheses, then a colon and a tab
+ * ```ts
+ * import { splitMetadataLine } from "./read_metadata.ts";
+ * const kv = splitMetadataLine("Thickness (mm):\t1,5");
+ * if (kv?.key !== "Thickness (mm)" || kv.value !== "1,5") throw new Error(JSON.stringify(kv));
+ * ```
  */
 export function splitMetadataLine(raw: string): MetadataEntry | undefined {
   const s = raw.trim().replace(/^#+\s*/, "");
@@ -32,7 +39,13 @@ export function splitMetadataLine(raw: string): MetadataEntry | undefined {
       break;
     }
   }
-  if (at <= 0) return undefined;
+  if (at <= 0) {
+    // no separator: words then a number with its unit ("Thickness 1.5 mm", "Path [cm] 0,15")
+    const m =
+      /^([A-Za-z][A-Za-z ]*?(?:\s*[(\[][^)\]]*[)\]])?)\s+([+-]?\d[\d.,]*(?:\s*[A-Za-zµμ]+)?)$/
+        .exec(s);
+    return m ? { key: m[1]!.trim(), value: m[2]! } : undefined;
+  }
   const key = s.slice(0, at).trim();
   if (!key || /^[+-]?[\d.]+$/.test(key)) return undefined;
   const value = s.slice(at).replace(/^[\s:=;,]+/, "").replace(/[\s;,]+$/, "");
@@ -43,6 +56,13 @@ export function splitMetadataLine(raw: string): MetadataEntry | undefined {
  * A number from a metadata value, its decimal mark judged on the value alone: `1,5` and
  * `1.5` are 1.5; `1.234,5` and `1,234.5` are 1234.5; a list (`1,5,7`, `1, 5`) is no number.
  * Any text after the number (a unit) is ignored.
+ *
+ * @example A decimal comma in a comma-separated file's preamble
+ * ```ts
+ * import { parseMetaNumber } from "./read_metadata.ts";
+ * if (parseMetaNumber("1,5") !== 1.5) throw new Error("1,5 is 1.5");
+ * if (parseMetaNumber("1,5,7") !== undefined) throw new Error("a list is no number");
+ * ```
  */
 export function parseMetaNumber(value: string): number | undefined {
   const m = /^\s*([+-]?(?:\d[\d.,]*|[.,]\d+)(?:[eE][+-]?\d+)?)(?![\d.,])/.exec(value);

@@ -41,6 +41,7 @@ describe("metadata lines: any separator, units in brackets, decimal comma per va
       value: "L. Moreau",
     });
     expect(splitMetadataLine("Sample    garnet 7")).toEqual({ key: "Sample", value: "garnet 7" });
+    expect(splitMetadataLine("# Thickness 1.5 mm")).toEqual({ key: "Thickness", value: "1.5 mm" });
     expect(splitMetadataLine("End of data")).toBeUndefined();
   });
   it("judges the decimal mark on each value, and refuses lists", () => {
