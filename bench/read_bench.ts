@@ -8,10 +8,15 @@ import { readSpectrumFile } from "../lib/io/read_file.ts";
 const SPECTRA = 10_000;
 const POINTS = 401;
 
-/** Writes the invented benchmark export (x column in nm, 10,000 T columns) and returns its path. */
+/**
+ * Writes the invented benchmark export (x column in nm, 10,000 T columns) and returns its path:
+ * one fixed name in the system's temporary folder, overwritten by each run (deno bench gives no
+ * hook after the last benchmark to remove it).
+ */
 function writeBenchFile(): string {
-  const dir = Deno.makeTempDirSync({ prefix: "crystint-read-bench-" });
-  const path = `${dir}/spectra_10000x401.csv`;
+  const probe = Deno.makeTempDirSync({ prefix: "crystint-read-bench-" });
+  Deno.removeSync(probe);
+  const path = `${probe.replace(/[\\/][^\\/]+$/, "")}/crystint-read-bench-10000x401.csv`;
   const header = ["wavelength_nm"];
   for (let k = 0; k < SPECTRA; k++) header.push(`s${k} T`);
   const lines = [header.join(",")];
