@@ -36,7 +36,22 @@ export function readSpectraFromBytes(
       `Cannot read file: larger than ${limits.maxBytes} bytes`,
     );
   }
-  const text = decodeText(bytes, file);
+  return readSpectraFromText(decodeText(bytes, file), file, options);
+}
+
+/**
+ * Reads all spectra in the decoded text of one export file (delimited text or JCAMP-DX).
+ *
+ * @param text File content as text (see `decodeText`).
+ * @param file The file's name, used in errors and as the default sample name.
+ * @throws {InputError} For any problem with the content, naming file and line.
+ */
+export function readSpectraFromText(
+  text: string,
+  file: string,
+  options: ReadOptions = {},
+): Spectrum[] {
+  const limits = resolveReadLimits(options.limits);
   if (/^\s*##TITLE\s*=/im.test(text.slice(0, 2000))) return readJcamp(text, file, options);
   const tableOptions: TableReadOptions = { limits };
   if (options.tableReader) tableOptions.tableReader = options.tableReader;
