@@ -236,6 +236,10 @@ export function spectraFromTable(
   }
   const wavelengthNm = new Float64Array(rows);
   for (let k = 0; k < rows; k++) wavelengthNm[k] = nm[order[k]!]!;
+  // α over the slab (or, unknown, over a 0.1 mm film, the most lenient) may not reach an
+  // absorbance below MIN_ABSORBANCE: A = α·d / ln 10 with d in cm
+  const alphaPathMm = thicknessMm ?? 0.1;
+  const minAlpha = MIN_ABSORBANCE * Math.LN10 / (alphaPathMm / 10);
   const spectra: Spectrum[] = [];
   let ordinateConflict = false;
   for (let c = 1; c < width; c++) {
@@ -302,6 +306,15 @@ export function spectraFromTable(
           file,
           rowLines[i],
           `Absorbance ${shown} is below ${MIN_ABSORBANCE}, beyond any baseline noise (T would exceed 1)`,
+        );
+      } else if (quantity === "alpha" && v < minAlpha) {
+        throw new InputError(
+          "out-of-range",
+          file,
+          rowLines[i],
+          `α ${shown} cm-1 is below ${
+            minAlpha.toPrecision(3)
+          } cm-1, beyond any baseline noise over ${alphaPathMm} mm`,
         );
       }
       if (!asIs) values[k] = v;

@@ -159,6 +159,18 @@ describe("totality of numbers: non-finite and impossible values are refused with
     const [s] = readSpectraFromBytes(bytes(base("-0.02", "nm,A")), "noise.csv");
     expect(s!.values[2]).toBe(-0.02);
   });
+  it("α strongly negative is impossible: A = α·d / ln 10 below −0.3 over the slab", () => {
+    const text = (alpha: string) =>
+      ["Thickness: 2 mm", "nm,alpha (cm-1)", "400,1", "410,1", `420,${alpha}`, "430,1", "440,1"]
+        .join("\n");
+    // closed form: −0.3 · ln 10 / 0.2 cm = −3.45 cm⁻¹
+    expectProblem(
+      errorOf(() => readSpectraFromBytes(bytes(text("-3.5")), "a.csv")),
+      "out-of-range",
+      5,
+    );
+    expect(readSpectraFromBytes(bytes(text("-3.4")), "a.csv")[0]!.values[2]).toBe(-3.4);
+  });
   it("T = 1.5 is impossible beyond noise", () => {
     const e = errorOf(() => readSpectraFromBytes(bytes(base("1.5")), "t.csv"));
     expectProblem(e, "out-of-range", 4);
