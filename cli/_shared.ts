@@ -73,9 +73,11 @@ export function flagHint(need: string): string {
 /** An error's message, with the flag to give when the error carries a `need` hint. */
 export function withFlagHint(error: unknown): string {
   const message = (error as Error)?.message ?? String(error);
-  const need = (error as { need?: unknown })?.need;
+  const e = error as { need?: unknown; hint?: { need?: unknown; choices?: string[] } } | null;
+  const need = e?.need ?? e?.hint?.need;
   if (typeof need !== "string" || need === "") return message;
-  const flag = flagHint(need);
+  const choices = e?.hint?.choices;
+  const flag = choices?.length ? `--${need} ${choices.join("|")}` : flagHint(need);
   return message.includes(flag.split(/[ ,]/)[0]!) ? message : `${message} (give ${flag})`;
 }
 

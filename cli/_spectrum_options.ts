@@ -8,6 +8,7 @@ import { axisFromText, ordinateFromText, type OrdinateKind } from "../lib/io/hea
 import type { AxisUnit } from "../lib/spectrum/axis.ts";
 import type { ReadOptions } from "../lib/io/read_spectra.ts";
 import { readSpectrumFile } from "../lib/io/read_file.ts";
+import { readerWarnings } from "../lib/io/reader_warnings.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
 import { getHost, hostIndex, parseSellmeier } from "../lib/optics/refractive_index.ts";
 import { fresnelReflectance } from "../lib/optics/slab.ts";
@@ -209,9 +210,7 @@ export async function forEachFile(
   for (const file of files) {
     try {
       const spectra = (await readSpectrumFile(file, options)).map((s) => naturalAlpha(s, base));
-      for (const s of spectra) {
-        for (const w of s.meta.warnings ?? []) log(`crystint: ${file}: ${s.meta.sample}: ${w}`);
-      }
+      for (const w of readerWarnings(spectra)) log(`crystint: ${file}: ${w}`);
       each(spectra, file);
     } catch (e) {
       failed++;

@@ -1,5 +1,6 @@
 /**
- * The analysis of one sample, in named steps: optics → colour rows → change → series →
+ * The analysis of one sample, in named steps: provenance (which source states each input) →
+ * optics → colour rows → change → series →
  * target → bands → dopant → uncertainty (when asked for). Pure: no file system, so it runs in a worker or a notebook.
  *
  * @module
@@ -16,6 +17,7 @@ import { bandsStep } from "./bands_step.ts";
 import { dopantStep } from "./dopant_step.ts";
 import { thinTransmittance } from "./chart_curves.ts";
 import { uncertaintyStep } from "./uncertainty_step.ts";
+import { provenanceStep } from "./provenance_step.ts";
 
 /** The host's name from the reflection settings, when one is set. */
 function hostName(s: SampleSettings): string | undefined {
@@ -28,19 +30,20 @@ function hostName(s: SampleSettings): string | undefined {
  *
  * @param measured The spectrum as read.
  * @param file The file it came from (carried into the result).
- * @param s The sample's settings.
+ * @param given The sample's settings.
  * @param single Whether the file holds only this spectrum (then the sheet's name applies).
  */
 export function analyseSample(
   measured: Spectrum,
   file: string,
-  s: SampleSettings,
+  given: SampleSettings,
   single = true,
 ): SampleResult {
-  const spectrum = measured.thicknessMm === undefined && s.fallbackThicknessMm !== undefined
-    ? { ...measured, thicknessMm: s.fallbackThicknessMm }
-    : measured;
-  const warnings = [...(spectrum.meta.warnings ?? [])];
+  const warnings = [
+    ...(measured.meta.fileWarnings ?? []).map((w) => w.message),
+    ...(measured.meta.warnings ?? []),
+  ];
+  const { spectrum, settings: s, provenance } = provenanceStep(measured, given, warnings);
   const { t, warnings: opticsWarnings } = pathTransmittance(spectrum, s);
   warnings.push(...opticsWarnings);
   const colour = colorRowsFor(spectrum, t, s.illuminants, s.observers, s.pathMm);
@@ -57,7 +60,7 @@ export function analyseSample(
     quantity: spectrum.quantity,
     thicknessMm: spectrum.thicknessMm ?? null,
     pathMm: s.pathMm ?? spectrum.thicknessMm ?? null,
-    polarisation: spectrum.polarisation ?? s.polarisation ?? null,
+    polarisation: provenance.polarisation.value,
     host: host ?? null,
     notes: s.notes ?? "",
     extra: s.extra,
@@ -70,6 +73,7 @@ export function analyseSample(
     dopant,
     bands: bands.result,
     uncertainty,
+    provenance,
   };
 }
 

@@ -11,6 +11,7 @@ import type { TargetCheck } from "../dopant/target.ts";
 import type { BandFit } from "../bands/fit_bands.ts";
 import type { BandAssignment } from "../bands/assign_bands.ts";
 import type { TargetVerdict } from "../dopant/target_probability.ts";
+import type { Provenance } from "./provenance_step.ts";
 import type { ResolvedUncertaintySources } from "../cie/color_uncertainty.ts";
 
 /** The colour change of a sample, with the swatches of both colours. */
@@ -135,6 +136,8 @@ export interface SampleResult {
   bands: BandsResult | null;
   /** Standard uncertainties (k = 1), when the settings ask for them. */
   uncertainty: UncertaintyResult | null;
+  /** Where thickness, path, host, polarisation, ordinate and axis came from. */
+  provenance: Provenance;
 }
 
 /** The uncertainty of one colour row. */

@@ -59,6 +59,18 @@ export interface SeriesSetting {
   targetL?: number;
 }
 
+/** Values a sample-sheet row states for its sample. */
+export interface SheetValues {
+  /** Measured thickness, mm. */
+  thicknessMm?: number;
+  /** Path of the finished stone, mm. */
+  pathMm?: number;
+  /** Host crystal. */
+  host?: string;
+  /** Polarisation of the measurement. */
+  polarisation?: string;
+}
+
 /** Settings for one sample. */
 export interface SampleSettings {
   /** How to read the file (overrides for what the file does not say). */
@@ -89,8 +101,10 @@ export interface SampleSettings {
   extra: Record<string, string>;
   /** Sample name from the sample sheet (used when the file holds one spectrum). */
   sampleName?: string;
-  /** Polarisation from the sample sheet (used when the file does not say). */
-  polarisation?: string;
+  /** What the sample sheet states; it outranks the file, and the file the settings. */
+  sheet?: SheetValues;
+  /** Where `read`'s overrides come from: a command-line option (default) or the settings. */
+  readSource?: "option" | "settings";
   /** Calibration to estimate the dopant level with, and its name. */
   calibration?: Calibration & { name: string };
   /** Uncertainty sources; omitted: no uncertainties are computed. */

@@ -8,7 +8,7 @@ import { axisFromText, ordinateFromText } from "../io/header_units.ts";
 import type { ReflectionSettings } from "../optics/path_transmittance.ts";
 import { parseSellmeier } from "../optics/refractive_index.ts";
 import type { Calibration } from "../dopant/linear_calibration.ts";
-import type { SampleSettings } from "../analysis/sample_settings.ts";
+import type { SampleSettings, SheetValues } from "../analysis/sample_settings.ts";
 import type { BatchSettings } from "./settings_schema.ts";
 import type { ManifestRow } from "./manifest.ts";
 
@@ -27,10 +27,8 @@ export function settingsForSample(
   const axis = settings.axis ? axisFromText(settings.axis) : undefined;
   if (ordinate) read.ordinate = ordinate;
   if (axis) read.axis = axis;
-  if (row?.thicknessMm !== undefined) read.thicknessMm = row.thicknessMm;
-  const host = row?.host ?? settings.host;
   const reflection: ReflectionSettings = { reflection: settings.reflection };
-  if (host !== undefined) reflection.host = host;
+  if (settings.host !== undefined) reflection.host = settings.host;
   if (settings.n !== undefined) reflection.n = settings.n;
   if (settings.sellmeier !== undefined) reflection.dispersion = parseSellmeier(settings.sellmeier);
   const out: SampleSettings = {
@@ -44,8 +42,15 @@ export function settingsForSample(
     changeMinChroma: settings.changeMinChroma,
     extra: row?.extra ?? {},
   };
-  const pathMm = row?.pathMm ?? settings.pathMm;
-  if (pathMm !== undefined) out.pathMm = pathMm;
+  if (settings.pathMm !== undefined) out.pathMm = settings.pathMm;
+  // what the sheet states outranks the file, and the file the settings (see lib/analysis)
+  const sheet: SheetValues = {};
+  if (row?.thicknessMm !== undefined) sheet.thicknessMm = row.thicknessMm;
+  if (row?.pathMm !== undefined) sheet.pathMm = row.pathMm;
+  if (row?.host !== undefined) sheet.host = row.host;
+  if (row?.polarisation) sheet.polarisation = row.polarisation;
+  if (Object.keys(sheet).length) out.sheet = sheet;
+  if (ordinate || axis) out.readSource = "settings";
   if (settings.thicknessMm !== undefined) out.fallbackThicknessMm = settings.thicknessMm;
   const targetName = row?.target;
   const target = targetName ? settings.targets[targetName] : settings.target;
@@ -65,6 +70,5 @@ export function settingsForSample(
   }
   if (row?.notes) out.notes = row.notes;
   if (row?.sample) out.sampleName = row.sample;
-  if (row?.polarisation) out.polarisation = row.polarisation;
   return out;
 }

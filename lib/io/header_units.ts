@@ -6,14 +6,9 @@
  */
 import type { AxisUnit } from "../spectrum/axis.ts";
 
-/** An ordinate as written in a file, before conversion to the model's quantities. */
-export type OrdinateKind =
-  | "transmittance"
-  | "percent"
-  | "absorbance"
-  | "alpha"
-  | "reflectance"
-  | "percent-reflectance";
+import type { OrdinateKind } from "../spectrum/spectrum.ts";
+
+export type { OrdinateKind };
 
 /** What one header cell says. */
 export interface HeaderReading {
@@ -39,7 +34,8 @@ function tokens(cell: string): string[] {
 
 /** Reads the header of the spectral axis column. */
 export function readAxisHeader(cell: string): HeaderReading {
-  const text = cell.trim();
+  // `wavelength_nm`: an underscore separates words as a space does
+  const text = cell.trim().replace(/_/g, " ");
   if (CM1.test(text)) return { axis: "cm-1" };
   if (NM.test(text)) return { axis: "nm" };
   if (UM.test(text)) return { axis: "um" };

@@ -18,19 +18,37 @@ export type InputProblem =
   | "out-of-range"
   | "ambiguous-ordinate"
   | "ambiguous-axis"
+  | "too-large"
+  | "not-a-file"
   | "unreadable";
+
+/** What a caller could supply to settle the problem (the reader never names CLI flags). */
+export interface InputHint {
+  need: "axis" | "ordinate" | "thickness";
+  /** Values that would be accepted, e.g. `["nm", "um", "cm-1", "ev"]`. */
+  choices?: string[];
+}
 
 /** A problem with one input file, located to a line where possible. */
 export class InputError extends Error {
   readonly file: string;
   readonly line: number | undefined;
   readonly problem: InputProblem;
+  /** What would settle the problem, when the file leaves a value undetermined. */
+  readonly hint: InputHint | undefined;
 
-  constructor(problem: InputProblem, file: string, line: number | undefined, detail: string) {
+  constructor(
+    problem: InputProblem,
+    file: string,
+    line: number | undefined,
+    detail: string,
+    hint?: InputHint,
+  ) {
     super(`${file}${line === undefined ? "" : `:${line}`}: ${detail}`);
     this.name = "InputError";
     this.problem = problem;
     this.file = file;
     this.line = line;
+    this.hint = hint;
   }
 }

@@ -15,3 +15,6 @@ export * from "./parse_sheet.ts";
 export * from "./spectrum_columns.ts";
 export * from "./write_jcamp.ts";
 export * from "./write_spectrum_csv.ts";
+export * from "./read_limits.ts";
+export * from "./read_metadata.ts";
+export * from "./reader_warnings.ts";

@@ -1,37 +1,106 @@
 /**
- * File-system entry point of the reader (the only place in lib/io that touches Deno).
+ * File-system entry point of the reader (the only place in lib/io that touches Deno): regular
+ * files only, read no further than the size cap.
  *
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { InputError } from "./input_error.ts";
-import { type ReadOptions, readSpectraFromBytes } from "./read_spectra.ts";
+import { DEFAULT_READ_LIMITS, type ReadLimits, resolveReadLimits } from "./read_limits.ts";
+import { decodeText } from "./decode_text.ts";
+import { type ReadOptions, readSpectraFromText } from "./read_spectra.ts";
 
-/** Largest file accepted, in bytes (a text export of a million points is far below it). */
-export const MAX_FILE_BYTES = 64 * 1024 * 1024;
+/** Largest file accepted by default, in bytes (see {@linkcode DEFAULT_READ_LIMITS}). */
+export const MAX_FILE_BYTES = DEFAULT_READ_LIMITS.maxBytes;
+
+/**
+ * The bytes of one input file (export, sheet, settings, calibration), refusing anything that is
+ * not a regular file (a FIFO, a device, a folder) and anything larger than `maxBytes`, without
+ * reading past the cap even when the file grows while it is read.
+ *
+ * @throws {InputError} `not-a-file`, `too-large`, or `unreadable` with the system's reason.
+ */
+export async function readInputBytes(
+  path: string,
+  limits: Partial<ReadLimits> = {},
+): Promise<Uint8Array> {
+  const { maxBytes } = resolveReadLimits(limits);
+  let info: Deno.FileInfo;
+  try {
+    info = await Deno.stat(path);
+  } catch (e) {
+    throw new InputError("unreadable", path, undefined, `Cannot read file: ${reason(e)}`);
+  }
+  if (!info.isFile) {
+    throw new InputError(
+      "not-a-file",
+      path,
+      undefined,
+      `Cannot read file: not a regular file (${
+        info.isDirectory ? "a folder" : "a device or pipe"
+      })`,
+    );
+  }
+  if (info.size > maxBytes) throw tooLarge(path, maxBytes);
+  let file: Deno.FsFile;
+  try {
+    file = await Deno.open(path, { read: true });
+  } catch (e) {
+    throw new InputError("unreadable", path, undefined, `Cannot read file: ${reason(e)}`);
+  }
+  try {
+    const opened = await file.stat();
+    if (!opened.isFile) {
+      throw new InputError("not-a-file", path, undefined, "Cannot read file: not a regular file");
+    }
+    const size = Math.min(opened.size, maxBytes);
+    let buffer = new Uint8Array(size + 1);
+    let length = 0;
+    for (;;) {
+      if (length === buffer.length) {
+        if (length > maxBytes) throw tooLarge(path, maxBytes);
+        const grown = new Uint8Array(Math.min(buffer.length * 2, maxBytes + 1));
+        grown.set(buffer);
+        buffer = grown;
+      }
+      const n = await file.read(buffer.subarray(length));
+      if (n === null) break;
+      length += n;
+      if (length > maxBytes) throw tooLarge(path, maxBytes);
+    }
+    return buffer.subarray(0, length);
+  } catch (e) {
+    if (e instanceof InputError) throw e;
+    throw new InputError("unreadable", path, undefined, `Cannot read file: ${reason(e)}`);
+  } finally {
+    file.close();
+  }
+}
+
+function tooLarge(path: string, maxBytes: number): InputError {
+  return new InputError(
+    "too-large",
+    path,
+    undefined,
+    `Cannot read file: larger than ${maxBytes} bytes`,
+  );
+}
+
+function reason(e: unknown): string {
+  return e instanceof Error ? e.message : String(e);
+}
 
 /**
  * Reads every spectrum in an export file.
  *
- * @throws {InputError} `unreadable` when the file cannot be opened, else any reading error.
+ * @throws {InputError} `unreadable`, `not-a-file` or `too-large` when the file cannot be
+ *   taken, else any reading error.
  */
 export async function readSpectrumFile(
   path: string,
   options: ReadOptions = {},
 ): Promise<Spectrum[]> {
-  let bytes: Uint8Array;
-  try {
-    const info = await Deno.stat(path);
-    if (!info.isFile) throw new Error("not a regular file");
-    if (info.size > MAX_FILE_BYTES) throw new Error(`larger than ${MAX_FILE_BYTES} bytes`);
-    bytes = await Deno.readFile(path);
-  } catch (e) {
-    throw new InputError(
-      "unreadable",
-      path,
-      undefined,
-      `Cannot read file: ${(e as Error).message}`,
-    );
-  }
-  return readSpectraFromBytes(bytes, path, options);
+  // the bytes are dropped once decoded, so their memory can go before the columns are built
+  const text = decodeText(await readInputBytes(path, options.limits), path);
+  return readSpectraFromText(text, path, options);
 }

@@ -12,6 +12,7 @@ import { spectraFromTable } from "./spectra_from_table.ts";
 import type { TextTable } from "./read_table.ts";
 import type { OrdinateKind } from "./header_units.ts";
 import type { AxisUnit } from "../spectrum/axis.ts";
+import { resolveReadLimits } from "./read_limits.ts";
 
 const SQZ: Record<string, number> = { "@": 0 };
 const DIF: Record<string, number> = { "%": 0 };
@@ -22,11 +23,18 @@ const DUP: Record<string, number> = {};
 "jklmnopqr".split("").forEach((c, i) => (DIF[c] = -(i + 1)));
 "STUVWXYZs".split("").forEach((c, i) => (DUP[c] = i + 1));
 
-/** Decodes one line of ASDF/AFFN values; returns the numbers and whether it ended in DIF form. */
+/**
+ * Decodes one line of ASDF/AFFN values; returns the numbers and whether it ended in DIF form.
+ *
+ * @param maxValues Most values the line may expand to; a DUP count beyond it is refused before
+ *   anything is expanded.
+ * @throws {InputError} For a bad character or count (`too-large` past `maxValues`).
+ */
 export function decodeAsdfLine(
   line: string,
   file: string,
   lineNo: number,
+  maxValues: number = Infinity,
 ): { values: number[]; endsInDif: boolean } {
   const values: number[] = [];
   let lastWasDif = false;
@@ -39,6 +47,14 @@ export function decodeAsdfLine(
       continue;
     }
     let j = i + 1;
+    if (values.length >= maxValues && !(ch in DUP)) {
+      throw new InputError(
+        "too-large",
+        file,
+        lineNo,
+        `Line holds more than the ${maxValues} values expected`,
+      );
+    }
     if (ch in SQZ || ch in DIF || ch in DUP) {
       while (j < s.length && /[0-9.]/.test(s[j]!)) j++;
       const digits = s.slice(i + 1, j);
@@ -47,6 +63,22 @@ export function decodeAsdfLine(
         const prev = values[values.length - 1];
         if (prev === undefined) {
           throw new InputError("malformed", file, lineNo, "DUP count with no value before it");
+        }
+        if (!(Number.isSafeInteger(count) && count >= 1)) {
+          throw new InputError(
+            "malformed",
+            file,
+            lineNo,
+            `DUP count "${ch}${digits}" is not a count`,
+          );
+        }
+        if (values.length + count - 1 > maxValues) {
+          throw new InputError(
+            "too-large",
+            file,
+            lineNo,
+            `DUP count ${count} expands past the ${maxValues} values this line may hold`,
+          );
         }
         const step = lastWasDif && values.length >= 2 ? prev - values[values.length - 2]! : 0;
         for (let k = 1; k < count; k++) values.push(values[values.length - 1]! + step);
@@ -126,6 +158,7 @@ function axisOf(xUnits: string): AxisUnit | undefined {
  * @throws {InputError} For a missing data table, bad values or inconsistent point counts.
  */
 export function readJcamp(text: string, file: string, options: ReadOptions = {}): Spectrum[] {
+  const limits = resolveReadLimits(options.limits);
   const lines = text.split(/\r\n|\n|\r/);
   const fields: Record<string, string> = {};
   const rows: number[][] = [];
@@ -163,11 +196,48 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
     }
     if (mode === "none" || line.trim() === "") continue;
     const xFactor = num("XFACTOR", 1), yFactor = num("YFACTOR", 1);
-    const { values, endsInDif } = decodeAsdfLine(line, file, n + 1);
+    const declared = num("NPOINTS", NaN);
+    const cap = Number.isFinite(declared) && declared >= 0
+      ? Math.min(declared, limits.maxPoints)
+      : limits.maxPoints;
+    // at the declared count only a DIF line's closing Y-check line may follow
+    if (rows.length >= cap && !(mode === "xydata" && prevEndsInDif)) {
+      throw declared === cap
+        ? new InputError(
+          "malformed",
+          file,
+          n + 1,
+          `The table holds more than the ${declared} points NPOINTS says`,
+        )
+        : new InputError(
+          "too-large",
+          file,
+          n + 1,
+          `The table holds more than ${cap} points; at most ${limits.maxPoints} are read`,
+        );
+    }
+    // room for the rest of the points, the leading X and a repeated check value
+    const room = mode === "xypoints" ? 2 * (cap - rows.length) : cap - rows.length + 2;
+    const { values, endsInDif } = decodeAsdfLine(line, file, n + 1, room);
     if (mode === "xypoints") {
       for (let k = 0; k + 1 < values.length; k += 2) {
         rows.push([values[k]! * xFactor, values[k + 1]! * yFactor]);
         rowLines.push(n + 1);
+      }
+      if (rows.length > cap) {
+        throw declared === cap
+          ? new InputError(
+            "malformed",
+            file,
+            n + 1,
+            `The table holds more than the ${declared} points NPOINTS says`,
+          )
+          : new InputError(
+            "too-large",
+            file,
+            n + 1,
+            `The table holds more than ${cap} points; at most ${limits.maxPoints} are read`,
+          );
       }
       continue;
     }
@@ -198,6 +268,21 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
         rowLines.push(n + 1);
       });
     }
+    if (rows.length > cap) {
+      throw declared === cap
+        ? new InputError(
+          "malformed",
+          file,
+          n + 1,
+          `The table holds more than the ${declared} points NPOINTS says`,
+        )
+        : new InputError(
+          "too-large",
+          file,
+          n + 1,
+          `The table holds more than ${cap} points; at most ${limits.maxPoints} are read`,
+        );
+    }
     prevLastY = values[values.length - 1];
     prevEndsInDif = endsInDif;
   }
@@ -222,7 +307,10 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
     delimiter: "whitespace",
     decimalComma: false,
     header: [fields["XUNITS"] ?? "", fields["YUNITS"] ?? ""],
-    rows,
+    columns: [
+      Float64Array.from(rows, (r) => r[0]!),
+      Float64Array.from(rows, (r) => r[1]!),
+    ],
     rowLines,
     fields,
     comments: [],

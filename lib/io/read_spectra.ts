@@ -7,7 +7,9 @@
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { decodeText } from "./decode_text.ts";
 import { readJcamp } from "./read_jcamp.ts";
-import { readTextTable } from "./read_table.ts";
+import { readTextTable, type TableReadOptions } from "./read_table.ts";
+import { InputError } from "./input_error.ts";
+import { resolveReadLimits } from "./read_limits.ts";
 import { type ReadOptions, spectraFromTable } from "./spectra_from_table.ts";
 
 export type { ReadOptions };
@@ -17,14 +19,41 @@ export type { ReadOptions };
  *
  * @param bytes File content.
  * @param file The file's name, used in errors and as the default sample name.
- * @throws {InputError} For any problem with the content, naming file and line.
+ * @throws {InputError} For any problem with the content, naming file and line (`too-large`
+ *   past a cap of `options.limits`).
  */
 export function readSpectraFromBytes(
   bytes: Uint8Array,
   file: string,
   options: ReadOptions = {},
 ): Spectrum[] {
-  const text = decodeText(bytes, file);
+  const limits = resolveReadLimits(options.limits);
+  if (bytes.length > limits.maxBytes) {
+    throw new InputError(
+      "too-large",
+      file,
+      undefined,
+      `Cannot read file: larger than ${limits.maxBytes} bytes`,
+    );
+  }
+  return readSpectraFromText(decodeText(bytes, file), file, options);
+}
+
+/**
+ * Reads all spectra in the decoded text of one export file (delimited text or JCAMP-DX).
+ *
+ * @param text File content as text (see `decodeText`).
+ * @param file The file's name, used in errors and as the default sample name.
+ * @throws {InputError} For any problem with the content, naming file and line.
+ */
+export function readSpectraFromText(
+  text: string,
+  file: string,
+  options: ReadOptions = {},
+): Spectrum[] {
+  const limits = resolveReadLimits(options.limits);
   if (/^\s*##TITLE\s*=/im.test(text.slice(0, 2000))) return readJcamp(text, file, options);
-  return spectraFromTable(readTextTable(text, file), file, options);
+  const tableOptions: TableReadOptions = { limits };
+  if (options.tableReader) tableOptions.tableReader = options.tableReader;
+  return spectraFromTable(readTextTable(text, file, tableOptions), file, options);
 }

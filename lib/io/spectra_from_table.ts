@@ -5,7 +5,14 @@
  * @module
  */
 import { axisToNm, type AxisUnit } from "../spectrum/axis.ts";
-import type { Polarisation, Quantity, Spectrum } from "../spectrum/spectrum.ts";
+import type {
+  FileValue,
+  FileValues,
+  Quantity,
+  ReadWarning,
+  Spectrum,
+  SpectrumMeta,
+} from "../spectrum/spectrum.ts";
 import { InputError } from "./input_error.ts";
 import {
   axisFromText,
@@ -16,6 +23,10 @@ import {
   readOrdinateHeader,
 } from "./header_units.ts";
 import type { TextTable } from "./read_table.ts";
+import type { ReadLimits } from "./read_limits.ts";
+import { readFileMetadata } from "./read_metadata.ts";
+
+export { parseThicknessMm } from "./read_metadata.ts";
 
 /** Overrides a user can give when the file does not say, or says it wrongly. */
 export interface ReadOptions {
@@ -23,12 +34,18 @@ export interface ReadOptions {
   axis?: AxisUnit;
   /** Thickness of the measured slab in mm (overrides the file's metadata). */
   thicknessMm?: number;
+  /** Caps on the file (defaults in `read_limits.ts`). */
+  limits?: Partial<ReadLimits>;
+  /** `general` reads every table line cell by cell, for checking the fast path against it. */
+  tableReader?: "auto" | "general";
 }
 
 /** The least number of points a spectrum must have (our choice: fewer cannot carry a band or an interpolation). */
 export const MIN_POINTS = 5;
 /** Transmittance noise tolerated below 0 and above 1 before a value counts as wrong (common practice). */
 export const T_NOISE = 0.02;
+/** Most negative absorbance accepted (our choice: A = −0.3 is T ≈ 2, beyond any baseline drift). */
+export const MIN_ABSORBANCE = -0.3;
 
 function baseName(file: string): string {
   const name = file.split(/[\\/]/).pop() ?? file;
@@ -40,58 +57,59 @@ function findField(fields: Record<string, string>, pattern: RegExp): string | un
   return key === undefined ? undefined : fields[key];
 }
 
+/** Keys of preamble lines that may name the ordinate. */
+const ORDINATE_KEYS = /y\s*-?\s*units?|ordinate|data\s*type|quantity|mode|measurement/i;
+
 /** The ordinate named by any preamble line that talks about it (the first one that reads). */
-function ordinateFromFields(fields: Record<string, string>): OrdinateKind | undefined {
-  for (const [k, v] of Object.entries(fields)) {
-    if (!/y\s*-?\s*units?|ordinate|data\s*type|quantity|mode|measurement/i.test(k)) continue;
+function ordinateFromFields(
+  fields: Record<string, string>,
+): { kind: OrdinateKind; key: string } | undefined {
+  for (const [key, v] of Object.entries(fields)) {
+    if (!ORDINATE_KEYS.test(key)) continue;
     const kind = ordinateFromText(v);
-    if (kind) return kind;
+    if (kind) return { kind, key };
   }
   return undefined;
 }
 
-/** Thickness in mm from a metadata value such as `2.00 mm`, `0,2 cm` or `1500 µm`. */
-export function parseThicknessMm(value: string, key = ""): number | undefined {
-  const m = /([+-]?\d+(?:[.,]\d+)?(?:[eE][+-]?\d+)?)\s*(mm|cm|µm|μm|um|m)?\b/.exec(value);
-  if (!m) return undefined;
-  const v = Number(m[1]!.replace(",", "."));
-  const unit = (m[2] ?? (/\bcm\b/i.test(key) ? "cm" : /µm|um\b/i.test(key) ? "um" : "mm"))
-    .toLowerCase();
-  const mm = unit === "cm" ? v * 10 : unit === "m" ? v * 1000 : unit === "mm" ? v : v / 1000;
-  return mm > 0 && Number.isFinite(mm) ? mm : undefined;
-}
-
-function parsePolarisation(value: string | undefined): Polarisation | undefined {
-  if (!value) return undefined;
-  const v = value.trim().toLowerCase();
-  if (/^(o|ordinary|e\s*(⊥|perp|_\|_)\s*c|sigma|σ)$/.test(v) || /⊥|perp/.test(v)) return "o";
-  if (
-    /^(e|extraordinary|e\s*(∥|\|\||par(allel)?)\s*c|pi|π)$/.test(v) || /∥|\|\||parallel/.test(v)
-  ) return "e";
-  if (/unpol|none|natural/.test(v)) return "unpolarised";
-  return undefined;
+/** Smallest and largest of the values, by a loop (no spread: files may hold a million). */
+function extent(xs: ArrayLike<number>): [number, number] {
+  let min = Infinity, max = -Infinity;
+  for (let i = 0; i < xs.length; i++) {
+    const v = xs[i]!;
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  return [min, max];
 }
 
 function inferAxis(
-  xs: number[],
+  xs: ArrayLike<number>,
   file: string,
   line: number | undefined,
-  warnings: string[],
+  warnings: ReadWarning[],
 ): AxisUnit {
-  const min = Math.min(...xs), max = Math.max(...xs);
+  const [min, max] = extent(xs);
   if (min >= 150 && max <= 3300) {
-    warnings.push("axis read as nm from its range; give --axis to override");
+    warnings.push({
+      message: "axis read as nm from the range of its values (the file names no unit)",
+      need: "axis",
+    });
     return "nm";
   }
   if (min >= 3300 && max <= 70000) {
-    warnings.push("axis read as cm-1 from its range; give --axis to override");
+    warnings.push({
+      message: "axis read as cm-1 from the range of its values (the file names no unit)",
+      need: "axis",
+    });
     return "cm-1";
   }
   throw new InputError(
     "ambiguous-axis",
     file,
     line,
-    `Cannot tell the unit of the x axis (${min}–${max}): give --axis nm|um|cm-1|ev`,
+    `Cannot tell the unit of the x axis (${min}–${max}); it needs to be stated (nm, um, cm-1 or ev)`,
+    { need: "axis", choices: ["nm", "um", "cm-1", "ev"] },
   );
 }
 
@@ -128,48 +146,72 @@ export function spectraFromTable(
   file: string,
   options: ReadOptions = {},
 ): Spectrum[] {
-  const width = table.rows[0]?.length ?? 0;
+  const { columns, rowLines } = table;
+  const width = columns.length;
+  const rows = columns[0]?.length ?? 0;
   let header = table.header;
   if (header && header.length !== width) {
     header = width === 2 ? [header[0]!, header.slice(1).join(" ")] : undefined;
   }
-  const warnings: string[] = [];
+  const fileWarnings: ReadWarning[] = [];
+  const headerLine = table.headerLine;
+  const fieldLine = (pattern: RegExp) => {
+    const key = Object.keys(table.fields).find((k) => pattern.test(k));
+    return key === undefined ? undefined : { key, line: table.fieldLines?.[key] };
+  };
+  const xs = columns[0] ?? new Float64Array(0);
+  checkFinite(xs, rowLines, file);
   const axisReading: HeaderReading = header ? readAxisHeader(header[0]!) : {};
-  const fieldAxis = findField(table.fields, /x\s*-?\s*units?|axis|abscissa/i);
-  const xs = table.rows.map((r) => r[0]!);
-  const axis = options.axis ?? axisReading.axis ??
-    (fieldAxis ? axisFromText(fieldAxis) : undefined) ??
-    inferAxis(xs, file, table.headerLine ?? table.rowLines[0], warnings);
-  const fieldOrdinate = ordinateFromFields(table.fields);
-  const thicknessKey = Object.keys(table.fields).find((k) =>
-    /thick|path\s*length|^path\b/i.test(k)
-  );
-  const thicknessMm = options.thicknessMm ??
-    (thicknessKey ? parseThicknessMm(table.fields[thicknessKey]!, thicknessKey) : undefined);
-  const polarisation = parsePolarisation(findField(table.fields, /polari[sz]/i));
+  const fieldAxisAt = fieldLine(/x\s*-?\s*units?|axis|abscissa/i);
+  const fieldAxis = fieldAxisAt ? table.fields[fieldAxisAt.key] : undefined;
+  let fileAxis: FileValue<AxisUnit> | undefined;
+  if (axisReading.axis) {
+    fileAxis = fileValue(axisReading.axis, "header", header![0]!, headerLine);
+  } else if (fieldAxis && axisFromText(fieldAxis)) {
+    fileAxis = fileValue(axisFromText(fieldAxis)!, "field", fieldAxisAt!.key, fieldAxisAt!.line);
+  }
+  let axis: AxisUnit;
+  if (options.axis) axis = options.axis;
+  else if (fileAxis) axis = fileAxis.value;
+  else {
+    axis = inferAxis(xs, file, headerLine ?? rowLines[0], fileWarnings);
+    fileAxis = fileValue(axis, "range", undefined, undefined);
+  }
+  const ordinateField = ordinateFromFields(table.fields);
+  const fieldOrdinate = ordinateField?.kind;
+  const metadata = readFileMetadata(table.fields, table.fieldLines);
+  fileWarnings.push(...metadata.warnings);
+  const thicknessMm = options.thicknessMm ?? metadata.thicknessMm?.value;
+  const polarisation = metadata.polarisation?.value;
   const sampleField = findField(table.fields, /^(sample|specimen|sample\s*(name|id)|name|id)$/i);
+  const fileValues: FileValues = {};
+  if (fileAxis) fileValues.axis = fileAxis;
+  if (metadata.thicknessMm) fileValues.thicknessMm = metadata.thicknessMm;
+  if (metadata.polarisation) fileValues.polarisation = metadata.polarisation;
+  if (metadata.host) fileValues.host = metadata.host;
 
-  if (table.rows.length < MIN_POINTS) {
+  if (rows < MIN_POINTS) {
     throw new InputError(
       "too-few-points",
       file,
-      table.rowLines[0],
-      `Only ${table.rows.length} data rows; at least ${MIN_POINTS} are needed`,
+      rowLines[0],
+      `Only ${rows} data rows; at least ${MIN_POINTS} are needed`,
     );
   }
-  const nm = xs.map((x) => axisToNm(x, axis));
-  const order = nm.map((_, i) => i);
-  const descending = nm.length > 1 && nm[nm.length - 1]! < nm[0]!;
-  if (descending) order.reverse();
-  for (let k = 1; k < order.length; k++) {
+  const nm = new Float64Array(rows);
+  for (let i = 0; i < rows; i++) nm[i] = axisToNm(xs[i]!, axis);
+  const order = new Int32Array(rows);
+  const descending = rows > 1 && nm[rows - 1]! < nm[0]!;
+  for (let i = 0; i < rows; i++) order[i] = descending ? rows - 1 - i : i;
+  for (let k = 1; k < rows; k++) {
     const a = nm[order[k - 1]!]!, b = nm[order[k]!]!;
-    const line = table.rowLines[order[k]!];
+    const line = rowLines[order[k]!];
     if (b === a) {
       throw new InputError(
         "duplicate-x",
         file,
         line,
-        `Duplicate x value ${xs[order[k]!]} (also at line ${table.rowLines[order[k - 1]!]})`,
+        `Duplicate x value ${xs[order[k]!]} (also at line ${rowLines[order[k - 1]!]})`,
       );
     }
     if (b < a) {
@@ -181,77 +223,176 @@ export function spectraFromTable(
       );
     }
   }
-  if (!nm.every((v) => Number.isFinite(v) && v > 0)) {
-    const i = nm.findIndex((v) => !(Number.isFinite(v) && v > 0));
-    throw new InputError(
-      "out-of-range",
-      file,
-      table.rowLines[i],
-      `x value ${xs[i]} is not a valid ${axis} value`,
-    );
+  for (let i = 0; i < rows; i++) {
+    const v = nm[i]!;
+    if (!(Number.isFinite(v) && v > 0)) {
+      throw new InputError(
+        "out-of-range",
+        file,
+        rowLines[i],
+        `x value ${xs[i]} is not a valid ${axis} value`,
+      );
+    }
   }
-  const wavelengthNm = Float64Array.from(order, (i) => nm[i]!);
+  const wavelengthNm = new Float64Array(rows);
+  for (let k = 0; k < rows; k++) wavelengthNm[k] = nm[order[k]!]!;
+  // α over the slab (or, unknown, over a 0.1 mm film, the most lenient) may not reach an
+  // absorbance below MIN_ABSORBANCE: A = α·d / ln 10 with d in cm
+  const alphaPathMm = thicknessMm ?? 0.1;
+  const minAlpha = MIN_ABSORBANCE * Math.LN10 / (alphaPathMm / 10);
   const spectra: Spectrum[] = [];
+  let ordinateConflict = false;
   for (let c = 1; c < width; c++) {
+    const column = columns[c]!;
+    checkFinite(column, rowLines, file);
     const reading = header ? readOrdinateHeader(header[c]!) : {};
+    const fileOrdinate = reading.ordinate
+      ? fileValue(reading.ordinate, "header", header![c]!, headerLine)
+      : fieldOrdinate
+      ? fileValue(
+        fieldOrdinate,
+        "field",
+        ordinateField!.key,
+        table.fieldLines?.[ordinateField!.key],
+      )
+      : undefined;
+    if (reading.ordinate && fieldOrdinate && reading.ordinate !== fieldOrdinate) {
+      ordinateConflict = true;
+    }
     const kind = options.ordinate ?? reading.ordinate ??
       fieldOrdinate;
     if (!kind) {
       throw new InputError(
         "ambiguous-ordinate",
         file,
-        table.headerLine ?? table.rowLines[0],
+        headerLine ?? rowLines[0],
         `Cannot tell what column ${c + 1}${
           header ? ` ("${header[c]}")` : ""
-        } holds: give --ordinate transmittance|percent|absorbance|alpha`,
+        } holds; its quantity needs to be stated (transmittance, percent, absorbance or alpha)`,
+        { need: "ordinate", choices: ["transmittance", "percent", "absorbance", "alpha"] },
       );
     }
     const { quantity, scale: unitScale } = toQuantity(kind);
     // a decadic α (α₁₀ = A/d) is held as the napierian α of the model: α = α₁₀ · ln 10
     const decadic = quantity === "alpha" && /decadic|alpha\s*10|α\s*10/i.test(header?.[c] ?? "");
     const scale = decadic ? unitScale * Math.LN10 : unitScale;
-    const columnWarnings = [...warnings];
     let clipped = 0;
-    const values = Float64Array.from(order, (i) => {
-      let v = table.rows[i]![c]! * scale;
-      if (quantity === "transmittance" || quantity === "reflectance") {
+    const bounded = quantity === "transmittance" || quantity === "reflectance";
+    // the column itself serves as the values when nothing changes them (saves a copy per spectrum)
+    const asIs = !descending && scale === 1 && !(bounded && outsideUnit(column));
+    const values = asIs ? column : new Float64Array(rows);
+    for (let k = 0; k < rows; k++) {
+      const i = order[k]!;
+      const shown = column[i]!;
+      let v = shown * scale;
+      if (bounded) {
         if (v < -T_NOISE || v > 1 + T_NOISE) {
-          const shown = table.rows[i]![c]!;
-          const hint = kind === "transmittance" && shown > 1 && shown <= 100.5
-            ? "; if the values are percent, give --ordinate percent"
-            : "";
+          const percentLikely = kind === "transmittance" && shown > 1 && shown <= 100.5;
+          const hint = percentLikely ? "; if the values are percent, read them as percent" : "";
           throw new InputError(
             "out-of-range",
             file,
-            table.rowLines[i],
+            rowLines[i],
             `${kind === "percent" ? "%T" : "T"} value ${shown} is outside 0..${
               scale === 1 ? 1 : 100
             } beyond noise${hint}`,
+            percentLikely ? { need: "ordinate", choices: ["percent"] } : undefined,
           );
         }
         if (v < 0 || v > 1) {
           clipped++;
           v = Math.min(1, Math.max(0, v));
         }
+      } else if (quantity === "absorbance" && v < MIN_ABSORBANCE) {
+        throw new InputError(
+          "out-of-range",
+          file,
+          rowLines[i],
+          `Absorbance ${shown} is below ${MIN_ABSORBANCE}, beyond any baseline noise (T would exceed 1)`,
+        );
+      } else if (quantity === "alpha" && v < minAlpha) {
+        throw new InputError(
+          "out-of-range",
+          file,
+          rowLines[i],
+          `α ${shown} cm-1 is below ${
+            minAlpha.toPrecision(3)
+          } cm-1, beyond any baseline noise over ${alphaPathMm} mm`,
+        );
       }
-      return v;
-    });
-    if (clipped > 0) {
-      columnWarnings.push(`${clipped} value(s) slightly outside 0..1 clipped (noise)`);
+      if (!asIs) values[k] = v;
     }
     const multi = width > 2;
     const sample = reading.name ?? (multi ? undefined : sampleField) ??
       (multi ? `${baseName(file)}#${c}` : baseName(file));
-    const spectrum: Spectrum = {
-      wavelengthNm,
-      values,
-      quantity,
-      meta: { sample, sourceFile: file, fields: table.fields },
+    const meta: SpectrumMeta = {
+      sample,
+      sourceFile: file,
+      fields: table.fields,
+      fileWarnings,
+      fileValues: fileOrdinate ? { ...fileValues, ordinate: fileOrdinate } : fileValues,
+      sources: {
+        axis: options.axis ? "option" : "file",
+        ordinate: options.ordinate ? "option" : "file",
+      },
     };
-    if (columnWarnings.length) spectrum.meta.warnings = columnWarnings;
+    if (options.thicknessMm !== undefined) meta.sources!.thicknessMm = "option";
+    else if (thicknessMm !== undefined) meta.sources!.thicknessMm = "file";
+    if (polarisation) meta.sources!.polarisation = "file";
+    if (metadata.host) meta.host = metadata.host.value;
+    if (metadata.operator) meta.operator = metadata.operator;
+    if (metadata.date) meta.date = metadata.date;
+    if (metadata.instrument) meta.instrument = metadata.instrument;
+    const spectrum: Spectrum = { wavelengthNm, values, quantity, meta };
+    if (clipped > 0) {
+      spectrum.meta.warnings = [`${clipped} value(s) slightly outside 0..1 clipped (noise)`];
+    }
     if (thicknessMm !== undefined) spectrum.thicknessMm = thicknessMm;
     if (polarisation) spectrum.polarisation = polarisation;
     spectra.push(spectrum);
   }
+  if (ordinateConflict && !options.ordinate) {
+    fileWarnings.push({
+      message: "the column header and a preamble line name different ordinates; the header is used",
+      need: "ordinate",
+    });
+  }
+  Object.freeze(fileWarnings);
   return spectra;
+}
+
+/** Whether any value lies outside 0..1 (and would be clipped or refused). */
+function outsideUnit(values: ArrayLike<number>): boolean {
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]!;
+    if (v < 0 || v > 1) return true;
+  }
+  return false;
+}
+
+/** A value as the file states it. */
+function fileValue<T>(
+  value: T,
+  how: "header" | "field" | "range",
+  key: string | undefined,
+  line: number | undefined,
+): FileValue<T> {
+  const v: FileValue<T> = { value, source: "file", how };
+  if (key !== undefined) v.key = key;
+  if (line !== undefined) v.line = line;
+  return v;
+}
+
+/** Rejects a non-finite number (a JCAMP-DX factor or compressed value that overflowed). */
+function checkFinite(values: ArrayLike<number>, rowLines: number[], file: string): void {
+  for (let i = 0; i < values.length; i++) {
+    if (!Number.isFinite(values[i]!)) {
+      throw new InputError(
+        "non-finite",
+        file,
+        rowLines[i],
+        `Value ${values[i]} is not a finite number`,
+      );
+    }
+  }
 }

@@ -10,16 +10,73 @@ export type Quantity = "transmittance" | "absorbance" | "alpha" | "reflectance";
 /** Light polarisation of a measurement relative to the optic axis. */
 export type Polarisation = "o" | "e" | "unpolarised";
 
+/** An ordinate as written in a file, before conversion to the model's quantities. */
+export type OrdinateKind =
+  | "transmittance"
+  | "percent"
+  | "absorbance"
+  | "alpha"
+  | "reflectance"
+  | "percent-reflectance";
+
+/** Spectral axis units a file may use (see `axis.ts`). */
+type FileAxisUnit = "nm" | "um" | "cm-1" | "ev";
+
+/** Where an input value came from; precedence option > sheet > file > settings > default. */
+export type ValueSource = "option" | "sheet" | "file" | "settings" | "default";
+
+/** One value as the file states it, with where in the file it was read. */
+export interface FileValue<T> {
+  value: T;
+  source: "file";
+  /** 1-based line the value was read from, when it came from one line. */
+  line?: number;
+  /** The key or header cell it was read from, verbatim. */
+  key?: string;
+  /** `range` when the file only implies it (an axis read from the span of its values). */
+  how?: "header" | "field" | "range";
+}
+
+/** What the file itself says about the values the analysis layer reconciles. */
+export interface FileValues {
+  thicknessMm?: FileValue<number>;
+  polarisation?: FileValue<Polarisation>;
+  host?: FileValue<string>;
+  ordinate?: FileValue<OrdinateKind>;
+  axis?: FileValue<FileAxisUnit>;
+}
+
+/** A note from reading a file, said once per file; `need` names what would settle it. */
+export interface ReadWarning {
+  message: string;
+  need?: "axis" | "ordinate" | "thickness" | "polarisation";
+}
+
 /** Where a spectrum came from and what the instrument file said about it. */
 export interface SpectrumMeta {
   /** Sample name, from the column header or the file name. */
   sample: string;
   /** Path of the source file as given by the user. */
   sourceFile?: string;
-  /** Key/value lines of the file's preamble, kept verbatim. */
+  /** Key/value lines of the file's preamble, comments and footer, kept verbatim. */
   fields?: Record<string, string>;
-  /** Notes produced while reading (clipping, inferred units). */
+  /** Notes about this spectrum alone (clipped values). */
   warnings?: string[];
+  /** Notes about the whole file (inferred units, conflicting metadata); one array shared by
+   * every spectrum of the file, so a caller says them once per file. */
+  fileWarnings?: ReadWarning[];
+  /** Values the file states (thickness, polarisation, host, ordinate, axis), with their line. */
+  fileValues?: FileValues;
+  /** Where the value used for each of thickness, polarisation, ordinate and axis came from. */
+  sources?: Partial<Record<"thicknessMm" | "polarisation" | "ordinate" | "axis", ValueSource>>;
+  /** Host crystal named by the file (`Host: corundum`). */
+  host?: string;
+  /** Operator named by the file. */
+  operator?: string;
+  /** Measurement date as written in the file. */
+  date?: string;
+  /** Instrument named by the file. */
+  instrument?: string;
 }
 
 /** One measured spectrum on an ascending wavelength axis in nanometres. */

@@ -99,6 +99,17 @@ describe("reading well-formed exports of many layouts", () => {
     const s = await expectTruth("stone.jdx", 1e-4);
     expect(s.meta.sample).toBe("spinel-12");
   });
+  it("the metadata layouts (meta_*) read the same curve", async () => {
+    for (
+      const f of [
+        "meta_tab_after_colon.csv",
+        "meta_in_comments.csv",
+        "meta_brackets_tab.txt",
+        "meta_semicolon_decimal_comma.csv",
+        "meta_equals_cm_footer.txt",
+      ]
+    ) expect((await expectTruth(f)).wavelengthNm.length).toBe(95);
+  });
   it("--ordinate and --axis override what the file says", async () => {
     const [s] = await read("bad", "no_header_ambiguous.csv", {
       ordinate: "transmittance",
@@ -119,8 +130,8 @@ describe("rejecting bad input with the specific error", () => {
     ["duplicate_x.csv", "duplicate-x", 12, /Duplicate x value 405 \(also at line 11\)/],
     ["non_monotonic.csv", "non-monotonic", 12, /300 breaks the ascending order/],
     ["too_few_points.csv", "too-few-points", 2, /at least 5/],
-    ["t_out_of_range.csv", "out-of-range", 2, /--ordinate percent/],
-    ["no_header_ambiguous.csv", "ambiguous-ordinate", 1, /--ordinate/],
+    ["t_out_of_range.csv", "out-of-range", 2, /if the values are percent/],
+    ["no_header_ambiguous.csv", "ambiguous-ordinate", 1, /needs to be stated/],
     ["ragged_row.csv", "malformed", 10, /3 fields/],
     ["npoints_mismatch.jdx", "malformed", 8, /NPOINTS says 12/],
   ];
@@ -134,10 +145,21 @@ describe("rejecting bad input with the specific error", () => {
       expect((error as InputError).message.startsWith(dir("bad") + name)).toBe(true);
     });
   }
-  it("ambiguous_axis.csv: an x axis that could be µm or eV asks for --axis", async () => {
+  it("ambiguous_axis.csv: an x axis that could be µm or eV asks for the axis unit", async () => {
     const error = await read("bad", "ambiguous_axis.csv").then(() => undefined, (e) => e);
     expect((error as InputError).problem).toBe("ambiguous-axis");
-    expect((error as InputError).message).toMatch(/--axis/);
+    expect((error as InputError).hint).toEqual({
+      need: "axis",
+      choices: ["nm", "um", "cm-1", "ev"],
+    });
+    expect((error as InputError).message).not.toMatch(/--/);
+  });
+  it("the ordinate and percent hints are machine-readable, not CLI flags", async () => {
+    const ordinate = await read("bad", "no_header_ambiguous.csv").then(() => undefined, (e) => e);
+    expect((ordinate as InputError).hint?.need).toBe("ordinate");
+    const percent = await read("bad", "t_out_of_range.csv").then(() => undefined, (e) => e);
+    expect((percent as InputError).hint).toEqual({ need: "ordinate", choices: ["percent"] });
+    for (const e of [ordinate, percent]) expect((e as InputError).message).not.toMatch(/--/);
   });
   it("a missing file is reported as unreadable", async () => {
     const error = await read("bad", "no_such_file.csv").then(() => undefined, (e) => e);
@@ -167,24 +189,60 @@ describe("totality: any bytes give spectra or an InputError", () => {
         for (const [at, byte] of edits) copy[at] = byte;
         return copy;
       });
+    // text edits that produce overflowing numbers, huge repeat counts and odd cells
+    const poison = fc.constantFrom(
+      "1e309",
+      "-1e309",
+      "1e99999",
+      "Infinity",
+      "-inf",
+      "NaN",
+      "S99999999999",
+      "A99999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999999",
+      "##YFACTOR=1e308\n",
+      "##NPOINTS=1e12\n",
+      "-50",
+      ",,",
+      '"',
+    );
+    const inject = (base: Uint8Array) =>
+      fc.array(fc.tuple(fc.nat(base.length - 1), poison), { minLength: 1, maxLength: 3 }).map(
+        (edits) => {
+          let text = new TextDecoder().decode(base);
+          for (const [at, piece] of edits) {
+            const i = at % text.length;
+            text = text.slice(0, i) + piece + text.slice(i + (piece.length % 4));
+          }
+          return new TextEncoder().encode(text);
+        },
+      );
     fc.assert(
       fc.property(
         fc.oneof(
           fc.uint8Array({ maxLength: 400 }),
           mutate(seed),
           mutate(jcamp),
+          inject(seed),
+          inject(jcamp),
           fc.string({ maxLength: 300 }).map((s) => new TextEncoder().encode(s)),
         ),
         (bytes) => {
           try {
             const spectra = readSpectraFromBytes(bytes, "fuzz.csv");
-            for (const s of spectra) expect(s.values.every(Number.isFinite)).toBe(true);
+            for (const s of spectra) {
+              expect(s.values.every(Number.isFinite)).toBe(true);
+              expect(s.wavelengthNm.every((v) => Number.isFinite(v) && v > 0)).toBe(true);
+              if (s.quantity === "transmittance") {
+                expect(s.values.every((v) => v >= 0 && v <= 1)).toBe(true);
+              }
+              if (s.quantity === "absorbance") expect(s.values.every((v) => v >= -0.3)).toBe(true);
+            }
           } catch (e) {
             if (!(e instanceof InputError)) throw e;
           }
         },
       ),
-      { numRuns: 400, seed: 20261202 },
+      { numRuns: 1500, seed: 20261202 },
     );
   });
 });
