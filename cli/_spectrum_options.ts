@@ -9,6 +9,7 @@ import type { AxisUnit } from "../lib/spectrum/axis.ts";
 import type { ReadOptions } from "../lib/io/read_spectra.ts";
 import { readSpectrumFile } from "../lib/io/read_file.ts";
 import { readerWarnings } from "../lib/io/reader_warnings.ts";
+import { reconcile } from "../lib/analysis/provenance_step.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
 import { getHost, hostIndex, parseSellmeier } from "../lib/optics/refractive_index.ts";
 import { fresnelReflectance } from "../lib/optics/slab.ts";
@@ -211,6 +212,16 @@ export async function forEachFile(
     try {
       const spectra = (await readSpectrumFile(file, options)).map((s) => naturalAlpha(s, base));
       for (const w of readerWarnings(spectra)) log(`crystint: ${file}: ${w}`);
+      // an option outranks the file's own statement, but a disagreement is said once
+      const stated = spectra[0]?.meta.fileValues?.thicknessMm?.value;
+      if (options.thicknessMm !== undefined && stated !== undefined) {
+        const notes: string[] = [];
+        reconcile<number>("thickness", [
+          ["option", options.thicknessMm],
+          ["file", stated],
+        ], (v) => `${v} mm`, notes);
+        for (const n of notes) log(`crystint: ${file}: ${n}`);
+      }
       each(spectra, file);
     } catch (e) {
       failed++;
