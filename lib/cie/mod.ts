@@ -12,6 +12,7 @@ export * from "./interpolate.ts";
 export * from "./tristimulus.ts";
 export * from "./spaces.ts";
 export * from "./delta_e.ts";
+export * from "./delta_e2000_many.ts";
 export * from "./spectrum_colour.ts";
 export * from "./adaptation.ts";
 export * from "./colour_change.ts";
