@@ -42,15 +42,44 @@ console.log(
 );
 
 let sink = 0;
-Deno.bench("colorjs.io Color#deltaE2000, 10,000 pairs", { group: "ΔE00", baseline: true }, () => {
+const colorjsRun = () => {
   for (let i = 0; i < PAIRS; i++) sink += colors1[i]!.deltaE2000(colors2[i]!);
-});
-Deno.bench("crystint deltaE2000({L,a,b},{L,a,b}), 10,000 pairs", { group: "ΔE00" }, () => {
+};
+const objectRun = () => {
   for (let i = 0; i < PAIRS; i++) sink += deltaE2000(labs1[i]!, labs2[i]!);
-});
-Deno.bench("crystint deltaE2000Many(Float64Array…), 10,000 pairs", { group: "ΔE00" }, () => {
+};
+const packedRun = () => {
   deltaE2000Many(packed1, packed2, out);
   sink += out[0]!;
+};
+
+/** Median over interleaved rounds of (peer time / our time): robust on a shared machine. */
+function medianRatio(peer: () => void, ours: () => void, rounds = 31): number {
+  const time = (f: () => void) => {
+    const t0 = performance.now();
+    f();
+    return performance.now() - t0;
+  };
+  for (let i = 0; i < 5; i++) time(peer), time(ours);
+  const ratios: number[] = [];
+  for (let r = 0; r < rounds; r++) ratios.push(time(peer) / time(ours));
+  ratios.sort((x, y) => x - y);
+  return ratios[rounds >> 1]!;
+}
+console.log(
+  `ΔE00 ratio colorjs.io / crystint per pair (median of 31 interleaved rounds of ${PAIRS}): ` +
+    `deltaE2000 ${medianRatio(colorjsRun, objectRun).toFixed(1)}×, ` +
+    `deltaE2000Many ${medianRatio(colorjsRun, packedRun).toFixed(1)}×`,
+);
+
+Deno.bench("colorjs.io Color#deltaE2000, 10,000 pairs", { group: "ΔE00", baseline: true }, () => {
+  colorjsRun();
+});
+Deno.bench("crystint deltaE2000({L,a,b},{L,a,b}), 10,000 pairs", { group: "ΔE00" }, () => {
+  objectRun();
+});
+Deno.bench("crystint deltaE2000Many(Float64Array…), 10,000 pairs", { group: "ΔE00" }, () => {
+  packedRun();
 });
 globalThis.addEventListener("unload", () => {
   if (Number.isNaN(sink)) console.log("unexpected NaN");

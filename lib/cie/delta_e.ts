@@ -6,7 +6,12 @@
  * @module
  */
 import type { Lab } from "./spaces.ts";
-import { ciede2000 } from "./_ciede2000.ts";
+import { ciede2000Run } from "./_ciede2000.ts";
+
+/** Reused scratch for {@linkcode deltaE2000}: one call at a time, so nothing is allocated. */
+const FIRST = new Float64Array(3), SECOND = new Float64Array(3);
+const FACTORS = new Float64Array(3), RESULT = new Float64Array(1);
+const REFERENCE_FACTORS = Float64Array.of(1, 1, 1);
 
 const DEG = Math.PI / 180;
 
@@ -51,17 +56,21 @@ export interface DeltaE2000Options {
  * ```
  */
 export function deltaE2000(lab1: Lab, lab2: Lab, options?: DeltaE2000Options): number {
-  return ciede2000(
-    lab1.L,
-    lab1.a,
-    lab1.b,
-    lab2.L,
-    lab2.a,
-    lab2.b,
-    options?.kL ?? 1,
-    options?.kC ?? 1,
-    options?.kH ?? 1,
-  );
+  FIRST[0] = lab1.L;
+  FIRST[1] = lab1.a;
+  FIRST[2] = lab1.b;
+  SECOND[0] = lab2.L;
+  SECOND[1] = lab2.a;
+  SECOND[2] = lab2.b;
+  let factors = REFERENCE_FACTORS;
+  if (options !== undefined) {
+    factors = FACTORS;
+    factors[0] = options.kL ?? 1;
+    factors[1] = options.kC ?? 1;
+    factors[2] = options.kH ?? 1;
+  }
+  ciede2000Run(FIRST, SECOND, factors, RESULT, 0, 1);
+  return RESULT[0]!;
 }
 
 /** CMC(l:c) colour difference, lab1 the reference; l = 2, c = 1 (acceptability) by default. */

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { ciede2000 } from "./_ciede2000.ts";
+import { ciede2000Run } from "./_ciede2000.ts";
 import type { DeltaE2000Options } from "./delta_e.ts";
 
 /**
@@ -43,19 +43,7 @@ export function deltaE2000Many(
   if (result.length < n) {
     throw new RangeError(`Cannot write ${n} differences into an array of ${result.length}`);
   }
-  const kL = options?.kL ?? 1, kC = options?.kC ?? 1, kH = options?.kH ?? 1;
-  for (let i = 0, j = 0; i < n; i++, j += 3) {
-    result[i] = ciede2000(
-      lab1[j]!,
-      lab1[j + 1]!,
-      lab1[j + 2]!,
-      lab2[j]!,
-      lab2[j + 1]!,
-      lab2[j + 2]!,
-      kL,
-      kC,
-      kH,
-    );
-  }
+  const factors = Float64Array.of(options?.kL ?? 1, options?.kC ?? 1, options?.kH ?? 1);
+  ciede2000Run(lab1, lab2, factors, result, 0, n);
   return result;
 }
