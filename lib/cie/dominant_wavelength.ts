@@ -3,7 +3,9 @@
  * straight line from the white point through the sample's chromaticity meets the spectral
  * locus of the observer at λd; when it meets the purple line instead, the line through the
  * white the other way gives the complementary wavelength λc. pe = distance(white, sample) /
- * distance(white, boundary point).
+ * distance(white, boundary point), never above 1: a chromaticity beyond the 380–700 nm locus
+ * (possible only for light at the ends, where the locus folds back on itself) lies on the
+ * boundary to that precision and gets purity 1.
  *
  * @module
  */
@@ -15,7 +17,7 @@ export interface DominantWavelength {
   /** λd in nm, or λc (complementary) when `complementary` is true. */
   wavelengthNm: number;
   complementary: boolean;
-  /** Excitation purity 0 (white) … 1 (on the boundary). */
+  /** Excitation purity 0 (white) … 1 (on the boundary); never above 1. */
   purity: number;
 }
 
@@ -106,9 +108,9 @@ export function dominantWavelength(
   const n = lx.length - 1;
   const purple = rayHit(xw, yw, dx, dy, lx[0]!, ly[0]!, lx[n]!, ly[n]!);
   if (forward && (!purple || forward.t <= purple.t)) {
-    return { wavelengthNm: forward.nm, complementary: false, purity: 1 / forward.t };
+    return { wavelengthNm: forward.nm, complementary: false, purity: Math.min(1, 1 / forward.t) };
   }
   const back = find(-dx, -dy);
   if (!back || !purple) return undefined;
-  return { wavelengthNm: back.nm, complementary: true, purity: 1 / purple.t };
+  return { wavelengthNm: back.nm, complementary: true, purity: Math.min(1, 1 / purple.t) };
 }

@@ -7,7 +7,12 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { getIlluminant, type Illuminant } from "./illuminants.ts";
-import { tristimulusWeights, weightedXyz, type Xyz } from "./tristimulus.ts";
+import {
+  type TristimulusWeights,
+  tristimulusWeights,
+  weightedXyz,
+  type Xyz,
+} from "./tristimulus.ts";
 import { labToLch, xyzToLab, xyzToUvPrime, xyzToXy } from "./spaces.ts";
 import type { InterpolationMethod } from "./interpolate.ts";
 import { type ReflectionSettings, transmittanceForPath } from "../optics/path_transmittance.ts";
@@ -25,15 +30,17 @@ export interface ColourRow {
   X: number;
   Y: number;
   Z: number;
-  x: number;
-  y: number;
-  uPrime: number;
-  vPrime: number;
+  /** Chromaticity x, y, u′, v′; null below the luminance floor (Y < 0.01), see `notes`. */
+  x: number | null;
+  y: number | null;
+  uPrime: number | null;
+  vPrime: number | null;
   L: number;
   a: number;
   b: number;
   C: number;
-  h: number;
+  /** Hue angle h_ab in degrees 0–360; null below the luminance floor. */
+  h: number | null;
   /** Reference white used for CIELAB (the illuminant's own white, Y = 100). */
   whiteX: number;
   whiteY: number;
@@ -41,17 +48,33 @@ export interface ColourRow {
   method: InterpolationMethod;
   /** True when the data did not span 360–830 nm and end values were extended. */
   extrapolated: boolean;
-  /** Dominant (or, when `complementary`, complementary) wavelength in nm; null at the white. */
+  /**
+   * Dominant (or, when `complementary`, complementary) wavelength in nm; null at the white and
+   * below the luminance floor.
+   */
   dominantNm: number | null;
   complementary: boolean;
-  /** Excitation purity 0..1. */
+  /** Excitation purity 0..1 (never above 1); null where `dominantNm` is. */
   purity: number | null;
   /** Display swatch (sRGB hex after Bradford adaptation to D65, gamut-mapped when flagged). */
   srgb: string;
   srgbOutOfGamut: boolean;
   p3: string;
   p3OutOfGamut: boolean;
+  /** Why values are null (the luminance floor); absent when every value is defined. */
+  notes?: string[];
 }
+
+/**
+ * Luminance floor on the Y = 100 scale: below it chromaticity, hue, dominant wavelength and
+ * purity are not defined to any useful precision (a black stone has no hue), so they are null.
+ * The floor (Y 0.01, L* ≈ 0.09) is common practice, not a CIE figure.
+ */
+export const LUMINANCE_FLOOR_Y = 0.01;
+
+/** The note a row carries below {@linkcode LUMINANCE_FLOOR_Y}. */
+export const BELOW_FLOOR_NOTE =
+  `Y below ${LUMINANCE_FLOOR_Y}: too dark for chromaticity, hue and dominant wavelength`;
 
 /** Choices for {@linkcode spectrumColour}. */
 export interface ColourOptions {
@@ -67,11 +90,21 @@ export interface ColourOptions {
   reflection?: ReflectionSettings;
 }
 
-/** The colour coordinates of one stimulus. */
-export type ColourCoordinates = Pick<
-  ColourRow,
-  "X" | "Y" | "Z" | "x" | "y" | "uPrime" | "vPrime" | "L" | "a" | "b" | "C" | "h"
->;
+/** The colour coordinates of one stimulus, without the luminance floor. */
+export interface ColourCoordinates {
+  X: number;
+  Y: number;
+  Z: number;
+  x: number;
+  y: number;
+  uPrime: number;
+  vPrime: number;
+  L: number;
+  a: number;
+  b: number;
+  C: number;
+  h: number;
+}
 
 /** All coordinates of a stimulus from its XYZ and the reference white. */
 export function colourFromXyz(xyz: Xyz, white: Xyz): ColourCoordinates {
@@ -100,31 +133,62 @@ export function spectrumColour(spectrum: Spectrum, options: ColourOptions = {}):
     for (const observer of observers) {
       const w = tristimulusWeights(spectrum.wavelengthNm, illuminant, observer);
       const xyz = weightedXyz(t, w);
-      const colour = colourFromXyz(xyz, w.white);
-      const white = xyzToXy(w.white);
-      const dominant = dominantWavelength(colour.x, colour.y, white.x, white.y, w.observer);
-      const swatch = swatchFromXyz(xyz, w.white);
-      rows.push({
-        sample: spectrum.meta.sample,
-        file: spectrum.meta.sourceFile ?? "",
-        illuminant: illuminant.name,
-        observer: w.observer,
-        pathMm,
-        ...colour,
-        whiteX: w.white.X,
-        whiteY: w.white.Y,
-        whiteZ: w.white.Z,
-        method: w.method,
-        extrapolated: w.extrapolated,
-        dominantNm: dominant?.wavelengthNm ?? null,
-        complementary: dominant?.complementary ?? false,
-        purity: dominant?.purity ?? null,
-        srgb: swatch.srgb.css,
-        srgbOutOfGamut: swatch.srgb.outOfGamut,
-        p3: swatch.p3.css,
-        p3OutOfGamut: swatch.p3.outOfGamut,
-      });
+      rows.push(colourRow(spectrum, illuminant.name, pathMm, xyz, w));
     }
   }
   return rows;
+}
+
+/**
+ * The colour row of one stimulus under one condition, with the luminance floor applied.
+ *
+ * @param xyz Tristimulus values from the weights `w`.
+ */
+export function colourRow(
+  spectrum: Pick<Spectrum, "meta">,
+  illuminantName: string,
+  pathMm: number | null,
+  xyz: Xyz,
+  w: TristimulusWeights,
+): ColourRow {
+  const colour = colourFromXyz(xyz, w.white);
+  const dark = !(xyz.Y >= LUMINANCE_FLOOR_Y);
+  const white = xyzToXy(w.white);
+  const dominant = dark
+    ? undefined
+    : dominantWavelength(colour.x, colour.y, white.x, white.y, w.observer);
+  const swatch = swatchFromXyz(xyz, w.white);
+  const row: ColourRow = {
+    sample: spectrum.meta.sample,
+    file: spectrum.meta.sourceFile ?? "",
+    illuminant: illuminantName,
+    observer: w.observer,
+    pathMm,
+    X: colour.X,
+    Y: colour.Y,
+    Z: colour.Z,
+    x: dark ? null : colour.x,
+    y: dark ? null : colour.y,
+    uPrime: dark ? null : colour.uPrime,
+    vPrime: dark ? null : colour.vPrime,
+    L: colour.L,
+    a: colour.a,
+    b: colour.b,
+    C: colour.C,
+    h: dark ? null : colour.h,
+    whiteX: w.white.X,
+    whiteY: w.white.Y,
+    whiteZ: w.white.Z,
+    method: w.method,
+    extrapolated: w.extrapolated,
+    dominantNm: dominant?.wavelengthNm ?? null,
+    complementary: dominant?.complementary ?? false,
+    purity: dominant?.purity ?? null,
+    srgb: swatch.srgb.css,
+    srgbOutOfGamut: swatch.srgb.outOfGamut,
+    p3: swatch.p3.css,
+    p3OutOfGamut: swatch.p3.outOfGamut,
+  };
+  if (dark) row.notes = [BELOW_FLOOR_NOTE];
+  return row;
 }

@@ -1,7 +1,11 @@
 /**
  * Display values for a colour: sRGB (IEC 61966-2-1:1999) and Display P3 (SMPTE EG 432-1
  * primaries, D65 white, sRGB transfer curve), after adapting the colour from its illuminant's
- * white to D65 (Bradford). Colours outside a gamut are flagged, never silently clipped: the
+ * white to D65 (Bradford). Both RGB spaces are built from their published primaries on the
+ * white of the D65 tables the colours themselves use (CIE 15:2018, 2°, 360–830 nm at 1 nm), so
+ * a perfect transmitter lands on RGB (1, 1, 1) to rounding; the gamut test allows 5e-5 in
+ * linear RGB, half the last digit of the published 4-decimal matrices, so white and near-white
+ * are inside. Colours outside a gamut are flagged, never silently clipped: the
  * shown value is gamut-mapped by reducing CIELAB chroma at constant L* and hue (bisection on
  * C*ab) until it fits — a stated, hue-preserving mapping.
  *
@@ -10,19 +14,20 @@
 import Color from "color";
 import { adaptXyz, invert, multiply } from "./adaptation.ts";
 import type { Xyz } from "./tristimulus.ts";
-import { labToXyz, xyzToLab } from "./spaces.ts";
+import { labToXyz, xyzToLab, xyzToXy } from "./spaces.ts";
+import { GRID_NM } from "./grid.ts";
+import { tristimulusWeights } from "./tristimulus.ts";
 
 type Matrix = readonly [readonly number[], readonly number[], readonly number[]];
 
-/** XYZ (Y = 1) → linear sRGB, IEC 61966-2-1:1999 Amendment 1 (4-decimal matrix). */
-export const XYZ_TO_SRGB: Matrix = [
-  [3.2406, -1.5372, -0.4986],
-  [-0.9689, 1.8758, 0.0415],
-  [0.0557, -0.204, 1.057],
-];
+/**
+ * sRGB / Display P3 reference white, Y = 100: the white of the D65 tables the colours use
+ * (CIE 15:2018 D65 and 2° observer at 1 nm), whose chromaticity (0.31272, 0.32903) is the IEC
+ * 61966-2-1 white (0.3127, 0.3290) to its published precision.
+ */
+export const DISPLAY_WHITE: Xyz = { ...tristimulusWeights(GRID_NM, "D65", "2").white };
 
-/** sRGB / Display P3 reference white (D65, Y = 100), IEC 61966-2-1. */
-export const DISPLAY_WHITE: Xyz = { X: 95.047, Y: 100, Z: 108.883 };
+const DISPLAY_WHITE_XY = xyzToXy(DISPLAY_WHITE);
 
 /** RGB → XYZ matrix from primaries and white chromaticities (SMPTE RP 177 construction). */
 export function rgbToXyzMatrix(primaries: [number, number][], white: [number, number]): Matrix {
@@ -37,10 +42,27 @@ export function rgbToXyzMatrix(primaries: [number, number][], white: [number, nu
   return [0, 1, 2].map((r) => [0, 1, 2].map((c) => p[r]![c]! * s[c]!)) as unknown as Matrix;
 }
 
-/** XYZ (Y = 1) → linear Display P3 (D65 white 0.3127, 0.3290). */
-export const XYZ_TO_P3: Matrix = invert(
-  rgbToXyzMatrix([[0.68, 0.32], [0.265, 0.69], [0.15, 0.06]], [0.3127, 0.329]),
+/**
+ * XYZ (Y = 1) → linear sRGB: IEC 61966-2-1:1999 primaries (0.64, 0.33), (0.30, 0.60), (0.15,
+ * 0.06) on {@linkcode DISPLAY_WHITE}; equals the standard's 4-decimal matrix to its precision.
+ */
+export const XYZ_TO_SRGB: Matrix = invert(
+  rgbToXyzMatrix([[0.64, 0.33], [0.3, 0.6], [0.15, 0.06]], [
+    DISPLAY_WHITE_XY.x,
+    DISPLAY_WHITE_XY.y,
+  ]),
 );
+
+/** XYZ (Y = 1) → linear Display P3: SMPTE EG 432-1 primaries on {@linkcode DISPLAY_WHITE}. */
+export const XYZ_TO_P3: Matrix = invert(
+  rgbToXyzMatrix(
+    [[0.68, 0.32], [0.265, 0.69], [0.15, 0.06]],
+    [DISPLAY_WHITE_XY.x, DISPLAY_WHITE_XY.y],
+  ),
+);
+
+/** Allowance of the gamut test in linear RGB: half the last digit of a 4-decimal matrix. */
+export const GAMUT_TOLERANCE = 5e-5;
 
 /** sRGB transfer curve (IEC 61966-2-1): linear → encoded. */
 export function srgbEncode(v: number): number {
@@ -70,7 +92,13 @@ function linearRgb(m: Matrix, xyz: Xyz): [number, number, number] {
   return multiply(m, [xyz.X / 100, xyz.Y / 100, xyz.Z / 100]);
 }
 
-const inGamut = (rgb: number[]) => rgb.every((v) => v >= -1e-9 && v <= 1 + 1e-9);
+function inGamut(rgb: readonly number[]): boolean {
+  for (let i = 0; i < 3; i++) {
+    const v = rgb[i]!;
+    if (!(v >= -GAMUT_TOLERANCE && v <= 1 + GAMUT_TOLERANCE)) return false;
+  }
+  return true;
+}
 
 function render(
   m: Matrix,
