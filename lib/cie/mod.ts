@@ -14,6 +14,7 @@ export * from "./spaces.ts";
 export * from "./delta_e.ts";
 export * from "./delta_e2000_many.ts";
 export * from "./spectrum_colour.ts";
+export * from "./spectra_colour_many.ts";
 export * from "./adaptation.ts";
 export * from "./colour_change.ts";
 export * from "./dominant_wavelength.ts";
