@@ -11,7 +11,6 @@
  *
  * @module
  */
-import Color from "color";
 import { adaptXyz, invert, multiply } from "./adaptation.ts";
 import type { Xyz } from "./tristimulus.ts";
 import { labToXyz, xyzToLab, xyzToXy } from "./spaces.ts";
@@ -100,6 +99,54 @@ function inGamut(rgb: readonly number[]): boolean {
   return true;
 }
 
+/** Two lowercase hex digits of an encoded value 0..1 at 8 bits (IEC 61966-2-1 §5). */
+function hex2(v: number): string {
+  const byte = Math.round(v * 255);
+  return (byte < 16 ? "0" : "") + byte.toString(16);
+}
+
+/** The inverse of the CIELAB f (CIE 15:2018 eq. 8.9), as in {@linkcode labToXyz}. */
+function labInverse(t: number): number {
+  return t > 6 / 29 ? t ** 3 : (108 / 841) * (t - 4 / 29);
+}
+
+/** Rounding allowance of the quick gamut test: t·t·t is within a few ulp of t ** 3. */
+const QUICK_MARGIN = 1e-9;
+
+/**
+ * Whether L*, a*, b* (D65 white) is inside the RGB space of `m`; no allocation. A quick pass
+ * cubes by multiplication; only when a channel lies within 1e-9 of a gamut edge, where that
+ * rounding could matter, is the decision taken with `t ** 3` exactly as {@linkcode labToXyz}.
+ */
+function insideAt(m: Matrix, L: number, a: number, b: number, yLinear: number): boolean {
+  const fy = (L + 16) / 116;
+  const tx = fy + a / 500, tz = fy - b / 200;
+  const x = DISPLAY_WHITE.X * (tx > 6 / 29 ? tx * tx * tx : (108 / 841) * (tx - 4 / 29)) / 100;
+  const z = DISPLAY_WHITE.Z * (tz > 6 / 29 ? tz * tz * tz : (108 / 841) * (tz - 4 / 29)) / 100;
+  let close = false;
+  for (let r = 0; r < 3; r++) {
+    const row = m[r]!;
+    const v = row[0]! * x + row[1]! * yLinear + row[2]! * z;
+    if (v < -GAMUT_TOLERANCE - QUICK_MARGIN || v > 1 + GAMUT_TOLERANCE + QUICK_MARGIN) return false;
+    if (!(v > -GAMUT_TOLERANCE + QUICK_MARGIN && v < 1 + GAMUT_TOLERANCE - QUICK_MARGIN)) {
+      close = true;
+    }
+  }
+  return close ? insideExactly(m, tx, tz, yLinear) : true;
+}
+
+/** The gamut decision with the arithmetic of {@linkcode labToXyz} and {@linkcode inGamut}. */
+function insideExactly(m: Matrix, tx: number, tz: number, yLinear: number): boolean {
+  const x = DISPLAY_WHITE.X * labInverse(tx) / 100;
+  const z = DISPLAY_WHITE.Z * labInverse(tz) / 100;
+  for (let r = 0; r < 3; r++) {
+    const row = m[r]!;
+    const v = row[0]! * x + row[1]! * yLinear + row[2]! * z;
+    if (!(v >= -GAMUT_TOLERANCE && v <= 1 + GAMUT_TOLERANCE)) return false;
+  }
+  return true;
+}
+
 function render(
   m: Matrix,
   lab: { L: number; a: number; b: number },
@@ -117,20 +164,16 @@ function render(
   if (outOfGamut) {
     const c = Math.hypot(lab.a, lab.b);
     const h = Math.atan2(lab.b, lab.a);
+    const cosH = Math.cos(h), sinH = Math.sin(h);
+    // Y depends on L* only, so it is the same at every trial chroma
+    const yLinear = DISPLAY_WHITE.Y * labInverse((L + 16) / 116) / 100;
     let lo = 0, hi = 1;
     for (let k = 0; k < 40; k++) {
       const mid = (lo + hi) / 2;
-      const trial = linearRgb(
-        m,
-        labToXyz({ L, a: mid * c * Math.cos(h), b: mid * c * Math.sin(h) }, DISPLAY_WHITE),
-      );
-      if (inGamut(trial)) lo = mid;
+      if (insideAt(m, L, mid * c * cosH, mid * c * sinH, yLinear)) lo = mid;
       else hi = mid;
     }
-    rgbLinear = linearRgb(
-      m,
-      labToXyz({ L, a: lo * c * Math.cos(h), b: lo * c * Math.sin(h) }, DISPLAY_WHITE),
-    );
+    rgbLinear = linearRgb(m, labToXyz({ L, a: lo * c * cosH, b: lo * c * sinH }, DISPLAY_WHITE));
   }
   const rgb = rgbLinear.map((v) => srgbEncode(Math.min(1, Math.max(0, v)))) as [
     number,
@@ -138,7 +181,7 @@ function render(
     number,
   ];
   const css = space === "srgb"
-    ? Color.rgb(rgb.map((v) => Math.round(v * 255))).hex().toLowerCase()
+    ? `#${hex2(rgb[0])}${hex2(rgb[1])}${hex2(rgb[2])}`
     : `color(display-p3 ${rgb.map((v) => v.toFixed(4)).join(" ")})`;
   return { rgb, unmapped, outOfGamut, css };
 }

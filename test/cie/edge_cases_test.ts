@@ -211,3 +211,20 @@ describe("excitation purity never above 1 (CIE 15:2018 §9.1)", () => {
     expect(d!.purity).toBeLessThanOrEqual(1);
   });
 });
+
+describe("swatch hex strings", () => {
+  it("equal the `color` package's hex of the same 8-bit values on 3,000 seeded colours, mapped or not", async () => {
+    const { default: Color } = await import("color");
+    let seed = 42;
+    const rnd = () => {
+      seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0;
+      return seed / 4294967296;
+    };
+    const white = { X: 95.04, Y: 100, Z: 108.88 };
+    for (let i = 0; i < 3000; i++) {
+      const sw = swatchFromXyz({ X: 80 * rnd(), Y: 80 * rnd(), Z: 90 * rnd() }, white);
+      const expected = Color.rgb(sw.srgb.rgb.map((v) => Math.round(v * 255))).hex().toLowerCase();
+      expect(sw.srgb.css).toBe(expected);
+    }
+  });
+});
