@@ -11,7 +11,8 @@ import { getIlluminant, type Illuminant } from "./illuminants.ts";
 import { GRID_LENGTH } from "./grid.ts";
 import { resampleTo1nm } from "./interpolate.ts";
 import { type TristimulusWeights, tristimulusWeights } from "./tristimulus.ts";
-import { type ColourRow, colourRow } from "./spectrum_colour.ts";
+import type { ColourRow } from "./spectrum_colour.ts";
+import { colourRow } from "./_colour_row.ts";
 
 /** Spectra on one grid: one array per spectrum, or one flat array spectrum after spectrum. */
 export interface SpectraOnGrid {
