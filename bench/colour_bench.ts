@@ -89,6 +89,7 @@ function best(runs: number, f: () => void): number {
 /** The same 10,000 spectra as a CGATS .ti3 file for spec2cie (its SPECTRAL_* keywords). */
 function cgats(): string {
   const names = nm.map((w) => `SPEC_${w}`).join(" ");
+  const fields = nm.length + 1;
   const rows: string[] = [];
   for (let k = 0; k < columns; k++) rows.push(`${k + 1} ${nm.map((w) => cell(w, k)).join(" ")}`);
   return `CTI3\n\nDESCRIPTOR "bench"\nORIGINATOR "crystint bench"\n` +
@@ -98,7 +99,7 @@ function cgats(): string {
     `KEYWORD "SPECTRAL_START_NM"\nSPECTRAL_START_NM "380.000000"\n` +
     `KEYWORD "SPECTRAL_END_NM"\nSPECTRAL_END_NM "780.000000"\n` +
     `KEYWORD "SPECTRAL_NORM"\nSPECTRAL_NORM "1.0"\n` +
-    `NUMBER_OF_FIELDS ${nm.length + 1}\nBEGIN_DATA_FORMAT\nSAMPLE_ID ${names}\nEND_DATA_FORMAT\n\n` +
+    `NUMBER_OF_FIELDS ${fields}\nBEGIN_DATA_FORMAT\nSAMPLE_ID ${names}\nEND_DATA_FORMAT\n\n` +
     `NUMBER_OF_SETS ${columns}\nBEGIN_DATA\n${rows.join("\n")}\nEND_DATA\n`;
 }
 
