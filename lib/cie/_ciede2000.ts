@@ -42,9 +42,10 @@ function atanUnit(t: number): number {
   const k = Math.round(t * 64);
   const c = k / 64;
   const r = (t - c) / (1 + t * c);
-  const r2 = r * r;
-  return ATAN_ANCHORS[k]! +
-    r * (1 - r2 * (1 / 3 - r2 * (1 / 5 - r2 * (1 / 7 - r2 * (1 / 9 - r2 / 11)))));
+  const r2 = r * r, r4 = r2 * r2;
+  // Estrin's grouping of 1 − r²/3 + r⁴/5 − r⁶/7 + r⁸/9 − r¹⁰/11 (shorter dependency chain)
+  const p = (1 - r2 / 3) + r4 * (1 / 5 - r2 / 7) + r4 * r4 * (1 / 9 - r2 / 11);
+  return ATAN_ANCHORS[k]! + r * p;
 }
 
 /** Angle of (x, y) in degrees, 0 ≤ angle < 360, for (x, y) ≠ (0, 0). */
@@ -59,9 +60,11 @@ function angleDeg(x: number, y: number): number {
 
 /** sin x for 0 ≤ x ≤ π/3 by its Taylor series to x¹⁹ (next term < 1e-19). */
 function sinSmall(x: number): number {
-  const x2 = x * x;
-  let p = SIN_TERMS[9]!;
-  for (let k = 8; k >= 0; k--) p = p * x2 + SIN_TERMS[k]!;
+  const x2 = x * x, x4 = x2 * x2, x8 = x4 * x4;
+  const c = SIN_TERMS;
+  // Estrin's grouping of the series in x² (shorter dependency chain than Horner)
+  const p = (c[0]! + c[1]! * x2) + x4 * (c[2]! + c[3]! * x2) +
+    x8 * ((c[4]! + c[5]! * x2) + x4 * (c[6]! + c[7]! * x2)) + x8 * x8 * (c[8]! + c[9]! * x2);
   return x * p;
 }
 
