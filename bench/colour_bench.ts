@@ -75,6 +75,17 @@ Deno.bench("colour of one 200,000-point export, weights built from scratch", {
   transmittanceToXyz(axis, bigValues, "D65", "2");
 });
 
+Deno.bench("colour of one 200,000-point irregular export (PCHIP, resampled per spectrum)", {
+  group: "large export",
+}, () => {
+  shift += 1e-7;
+  const axis = Float64Array.from(
+    { length: big },
+    (_, i) => 350 + shift + i * 0.0025 + 2e-4 * Math.sin(i),
+  );
+  transmittanceToXyz(axis, bigValues, "A", "10");
+});
+
 /** Wall time of the best of `runs` calls, ms. */
 function best(runs: number, f: () => void): number {
   let t = Infinity;

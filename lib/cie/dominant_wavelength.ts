@@ -62,7 +62,8 @@ function visibleLocus(observer: string) {
 const BINS = 720;
 /** Angular margin (rad) around each segment, far above the 1e-12 tolerance on u. */
 const MARGIN = 1e-9;
-const segmentIndexes = new Map<string, Int32Array[]>();
+/** Per observer, the indexes built so far: [xw, yw, index] (few whites are in use at once). */
+const segmentIndexes = new Map<string, { xw: number; yw: number; index: Int32Array[] }[]>();
 
 /**
  * For each direction bin seen from the white, the locus segments whose angular extent (plus a
@@ -70,14 +71,18 @@ const segmentIndexes = new Map<string, Int32Array[]>();
  * few segments instead of all of them and finds the same first hit. Cached per white.
  */
 function segmentsByDirection(
-  key: string,
+  observer: string,
   xw: number,
   yw: number,
   lx: number[],
   ly: number[],
 ): Int32Array[] {
-  const hit = segmentIndexes.get(key);
-  if (hit) return hit;
+  let built = segmentIndexes.get(observer);
+  if (!built) segmentIndexes.set(observer, built = []);
+  for (let i = 0; i < built.length; i++) {
+    const e = built[i]!;
+    if (e.xw === xw && e.yw === yw) return e.index;
+  }
   const lists: number[][] = Array.from({ length: BINS }, () => []);
   const binOf = (angle: number) =>
     Math.min(BINS - 1, Math.max(0, Math.floor(((angle + Math.PI) / (2 * Math.PI)) * BINS)));
@@ -98,8 +103,8 @@ function segmentsByDirection(
     }
   }
   const index = lists.map((l) => Int32Array.from(new Set(l)).sort());
-  if (segmentIndexes.size >= 64) segmentIndexes.delete(segmentIndexes.keys().next().value!);
-  segmentIndexes.set(key, index);
+  if (built.length >= 32) built.shift();
+  built.push({ xw, yw, index });
   return index;
 }
 
@@ -139,7 +144,7 @@ export function dominantWavelength(
   if (dist < 1e-9) return undefined;
   // Use the locus from 380 to 700 nm: beyond it the chromaticities fold back on themselves.
   const { lx, ly, ln } = visibleLocus(observer);
-  const index = segmentsByDirection(`${observer}|${xw}|${yw}`, xw, yw, lx, ly);
+  const index = segmentsByDirection(observer, xw, yw, lx, ly);
   const find = (sx: number, sy: number) => {
     // rayHit inlined: u first (one division), t only for segments the ray crosses
     let bestT = Infinity, bestNm = 0;
