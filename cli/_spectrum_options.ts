@@ -216,10 +216,15 @@ export async function forEachFile(
       const stated = spectra[0]?.meta.fileValues?.thicknessMm?.value;
       if (options.thicknessMm !== undefined && stated !== undefined) {
         const notes: string[] = [];
-        reconcile<number>("thickness", [
-          ["option", options.thicknessMm],
-          ["file", stated],
-        ], (v) => `${v} mm`, notes);
+        reconcile<number>(
+          "thickness",
+          [
+            ["option", options.thicknessMm],
+            ["file", stated],
+          ],
+          (v) => `${v} mm`,
+          notes,
+        );
         for (const n of notes) log(`crystint: ${file}: ${n}`);
       }
       each(spectra, file);

@@ -55,7 +55,7 @@ interface SeriesPoint {
   a: number;
   b: number;
   C: number;
-  h: number;
+  h: number | null;
   srgb: string;
 }
 

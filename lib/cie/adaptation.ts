@@ -25,10 +25,12 @@ export const CAT16: Matrix = [
 
 /** Multiplies a 3×3 matrix by a vector. */
 export function multiply(m: Matrix, v: readonly number[]): [number, number, number] {
-  return [0, 1, 2].map((i) => m[i]![0]! * v[0]! + m[i]![1]! * v[1]! + m[i]![2]! * v[2]!) as [
-    number,
-    number,
-    number,
+  const v0 = v[0]!, v1 = v[1]!, v2 = v[2]!;
+  const r0 = m[0]!, r1 = m[1]!, r2 = m[2]!;
+  return [
+    r0[0]! * v0 + r0[1]! * v1 + r0[2]! * v2,
+    r1[0]! * v0 + r1[1]! * v1 + r1[2]! * v2,
+    r2[0]! * v0 + r2[1]! * v1 + r2[2]! * v2,
   ];
 }
 
@@ -43,6 +45,8 @@ export function invert(m: Matrix): Matrix {
     [C / det, -(a! * h! - b! * g!) / det, (a! * e! - b! * d!) / det],
   ];
 }
+
+const BRADFORD_INVERSE = invert(BRADFORD), CAT16_INVERSE = invert(CAT16);
 
 /** Name of an adaptation transform. */
 export type AdaptationMethod = "bradford" | "cat16";
@@ -60,11 +64,11 @@ export type AdaptationMethod = "bradford" | "cat16";
  */
 export function adaptXyz(xyz: Xyz, fromWhite: Xyz, toWhite: Xyz, method: AdaptationMethod): Xyz {
   const m = method === "bradford" ? BRADFORD : CAT16;
-  const inv = invert(m);
+  const inv = method === "bradford" ? BRADFORD_INVERSE : CAT16_INVERSE;
   const src = multiply(m, [fromWhite.X, fromWhite.Y, fromWhite.Z]);
   const dst = multiply(m, [toWhite.X, toWhite.Y, toWhite.Z]);
   const c = multiply(m, [xyz.X, xyz.Y, xyz.Z]);
-  const scaled = c.map((v, i) => (v * dst[i]!) / src[i]!);
+  const scaled = [(c[0] * dst[0]) / src[0], (c[1] * dst[1]) / src[1], (c[2] * dst[2]) / src[2]];
   const [X, Y, Z] = multiply(inv, scaled);
   return { X, Y, Z };
 }

@@ -6,6 +6,12 @@
  * @module
  */
 import type { Lab } from "./spaces.ts";
+import { ciede2000Run } from "./_ciede2000.ts";
+
+/** Reused scratch for {@linkcode deltaE2000}: one call at a time, so nothing is allocated. */
+const FIRST = new Float64Array(3), SECOND = new Float64Array(3);
+const FACTORS = new Float64Array(3), RESULT = new Float64Array(1);
+const REFERENCE_FACTORS = Float64Array.of(1, 1, 1);
 
 const DEG = Math.PI / 180;
 
@@ -39,7 +45,8 @@ export interface DeltaE2000Options {
 }
 
 /**
- * CIEDE2000 colour difference ΔE00 (Sharma, Wu & Dalal 2005, eq. 1–25).
+ * CIEDE2000 colour difference ΔE00 (Sharma, Wu & Dalal 2005, eq. 1–25). Allocation-free; the
+ * hue terms use exact trigonometric identities (see `_ciede2000.ts`).
  *
  * @example Sharma et al. (2005) Table 1, pair 1
  * ```ts
@@ -48,45 +55,22 @@ export interface DeltaE2000Options {
  * if (Math.abs(d - 2.0425) > 1e-4) throw new Error(String(d));
  * ```
  */
-export function deltaE2000(lab1: Lab, lab2: Lab, options: DeltaE2000Options = {}): number {
-  const { kL = 1, kC = 1, kH = 1 } = options;
-  const c1 = Math.hypot(lab1.a, lab1.b), c2 = Math.hypot(lab2.a, lab2.b);
-  const cBar7 = ((c1 + c2) / 2) ** 7;
-  const g = 0.5 * (1 - Math.sqrt(cBar7 / (cBar7 + 25 ** 7)));
-  const a1 = (1 + g) * lab1.a, a2 = (1 + g) * lab2.a;
-  const cp1 = Math.hypot(a1, lab1.b), cp2 = Math.hypot(a2, lab2.b);
-  const hue = (a: number, b: number) => {
-    if (a === 0 && b === 0) return 0;
-    const h = Math.atan2(b, a) / DEG;
-    return h < 0 ? h + 360 : h;
-  };
-  const hp1 = hue(a1, lab1.b), hp2 = hue(a2, lab2.b);
-  const dLp = lab2.L - lab1.L, dCp = cp2 - cp1;
-  let dhp = 0;
-  if (cp1 * cp2 !== 0) {
-    dhp = hp2 - hp1;
-    if (dhp > 180) dhp -= 360;
-    else if (dhp < -180) dhp += 360;
+export function deltaE2000(lab1: Lab, lab2: Lab, options?: DeltaE2000Options): number {
+  FIRST[0] = lab1.L;
+  FIRST[1] = lab1.a;
+  FIRST[2] = lab1.b;
+  SECOND[0] = lab2.L;
+  SECOND[1] = lab2.a;
+  SECOND[2] = lab2.b;
+  let factors = REFERENCE_FACTORS;
+  if (options !== undefined) {
+    factors = FACTORS;
+    factors[0] = options.kL ?? 1;
+    factors[1] = options.kC ?? 1;
+    factors[2] = options.kH ?? 1;
   }
-  const dHp = 2 * Math.sqrt(cp1 * cp2) * Math.sin((dhp / 2) * DEG);
-  const lBar = (lab1.L + lab2.L) / 2, cBarP = (cp1 + cp2) / 2;
-  let hBarP = hp1 + hp2;
-  if (cp1 * cp2 !== 0) {
-    if (Math.abs(hp1 - hp2) <= 180) hBarP = (hp1 + hp2) / 2;
-    else hBarP = hp1 + hp2 < 360 ? (hp1 + hp2 + 360) / 2 : (hp1 + hp2 - 360) / 2;
-  }
-  const t = 1 - 0.17 * Math.cos((hBarP - 30) * DEG) + 0.24 * Math.cos(2 * hBarP * DEG) +
-    0.32 * Math.cos((3 * hBarP + 6) * DEG) - 0.2 * Math.cos((4 * hBarP - 63) * DEG);
-  const dTheta = 30 * Math.exp(-(((hBarP - 275) / 25) ** 2));
-  const cBarP7 = cBarP ** 7;
-  const rC = 2 * Math.sqrt(cBarP7 / (cBarP7 + 25 ** 7));
-  const l50 = (lBar - 50) ** 2;
-  const sL = 1 + (0.015 * l50) / Math.sqrt(20 + l50);
-  const sC = 1 + 0.045 * cBarP;
-  const sH = 1 + 0.015 * cBarP * t;
-  const rT = -Math.sin(2 * dTheta * DEG) * rC;
-  const tl = dLp / (kL * sL), tc = dCp / (kC * sC), th = dHp / (kH * sH);
-  return Math.sqrt(tl * tl + tc * tc + th * th + rT * tc * th);
+  ciede2000Run(FIRST, SECOND, factors, RESULT, 0, 1);
+  return RESULT[0]!;
 }
 
 /** CMC(l:c) colour difference, lab1 the reference; l = 2, c = 1 (acceptability) by default. */

@@ -211,3 +211,97 @@ export function resampleToGrid(
   }
   return out;
 }
+
+/** Sprague coefficients (×24) of t¹ … t⁵ for the points p−2 … p3 (CIE 167 eq. 1, expanded). */
+const SPRAGUE_POWERS = [
+  [2, -16, 0, 16, -2, 0],
+  [-1, 16, -30, 16, -1, 0],
+  [-9, 39, -70, 66, -33, 7],
+  [13, -64, 126, -124, 61, -12],
+  [-5, 25, -50, 50, -25, 5],
+] as const;
+
+/** a[i] += v under noUncheckedIndexedAccess. */
+function add(a: Float64Array, i: number, v: number): void {
+  a[i] = a[i]! + v;
+}
+
+/**
+ * The adjoint of {@linkcode resampleTo1nm} for a linear method: factors w on the data grid with
+ * Σₖ w[k]·v[k] = Σ_g gridFactors[g]·resampleTo1nm(wavelengthNm, v)[g] for every v. Built from
+ * the interpolation's own linear form (each 1 nm value is a fixed combination of at most six
+ * data points), so it takes time linear in the number of points (ASTM E2022 §7 builds E308
+ * weighting factors the same way).
+ *
+ * @param wavelengthNm Strictly ascending wavelengths in nm.
+ * @param gridFactors Factors on the 360–830 nm 1 nm grid (e.g. k·S(λ)·x̄(λ)).
+ * @param method A linear method: `"sprague"`, `"astm-e2022-lagrange"` or `"linear"`.
+ * @throws {RangeError} For PCHIP, which is not linear in the data.
+ */
+export function resampleAdjoint(
+  wavelengthNm: ArrayLike<number>,
+  gridFactors: ArrayLike<number>,
+  method: InterpolationMethod,
+): Float64Array<ArrayBuffer> {
+  if (method === "pchip") {
+    throw new RangeError("Cannot build fixed weights for PCHIP: it is not linear in the data");
+  }
+  const n = wavelengthNm.length;
+  const w = new Float64Array(n);
+  const first = wavelengthNm[0]!, last = wavelengthNm[n - 1]!;
+  const step = method === "linear" ? 0 : (last - first) / (n - 1);
+  // Sprague works on the data extended by two points at each end; those are sums of data
+  // points, so their factors are gathered here and spread back at the end.
+  const ext = method === "sprague" ? new Float64Array(n + 4) : undefined;
+  const coef = new Float64Array(6);
+  let j = 0;
+  for (let g = 0; g < GRID_LENGTH; g++) {
+    const f = gridFactors[g]!;
+    const wl = GRID_START_NM + g;
+    if (wl <= first + TOLERANCE_NM) {
+      add(w, 0, f);
+      continue;
+    }
+    if (wl >= last - TOLERANCE_NM) {
+      add(w, n - 1, f);
+      continue;
+    }
+    if (step > 0) {
+      const pos = (wl - first) / step;
+      j = Math.min(Math.floor(pos), n - 2);
+      const t = pos - j;
+      if (ext) {
+        coef.fill(0);
+        let tk = 1;
+        for (let k = 0; k < 5; k++) {
+          tk *= t;
+          const row = SPRAGUE_POWERS[k]!;
+          for (let m = 0; m < 6; m++) add(coef, m, (tk * row[m]!) / 24);
+        }
+        add(coef, 2, 1);
+        for (let m = 0; m < 6; m++) add(ext, j + m, f * coef[m]!);
+      } else {
+        const nodes = j === 0 ? [0, 1, 2] : j === n - 2 ? [-1, 0, 1] : [-1, 0, 1, 2];
+        const usable = n === 3 ? [-j, 1 - j, 2 - j] : nodes;
+        const l = lagrange(usable, t);
+        for (let k = 0; k < usable.length; k++) add(w, j + usable[k]!, f * l[k]!);
+      }
+      continue;
+    }
+    while (j < n - 2 && wavelengthNm[j + 1]! <= wl) j++;
+    const t = (wl - wavelengthNm[j]!) / (wavelengthNm[j + 1]! - wavelengthNm[j]!);
+    add(w, j, f * (1 - t));
+    add(w, j + 1, f * t);
+  }
+  if (ext) {
+    for (let i = 0; i < n; i++) add(w, i, ext[i + 2]!);
+    for (let r = 0; r < 2; r++) {
+      const head = ext[r]! / 209, tail = ext[n + 3 - r]! / 209;
+      for (let k = 0; k < 6; k++) {
+        add(w, k, SPRAGUE_END[r]![k]! * head);
+        add(w, n - 1 - k, SPRAGUE_END[r]![k]! * tail);
+      }
+    }
+  }
+  return w;
+}

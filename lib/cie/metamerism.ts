@@ -35,7 +35,8 @@ export function metamerismIndex(
   const wt = tristimulusWeights(wavelengthNm, test, observer);
   const r1 = weightedXyz(values1, wr), r2 = weightedXyz(values2, wr);
   const t1 = weightedXyz(values1, wt), t2 = weightedXyz(values2, wt);
-  const corrected = { X: (t2.X * r1.X) / r2.X, Y: (t2.Y * r1.Y) / r2.Y, Z: (t2.Z * r1.Z) / r2.Z };
+  // the ratio first, so identical specimens get factors of exactly 1 and an index of exactly 0
+  const corrected = { X: t2.X * (r1.X / r2.X), Y: t2.Y * (r1.Y / r2.Y), Z: t2.Z * (r1.Z / r2.Z) };
   const lab1 = xyzToLab(t1, wt.white), lab2 = xyzToLab(corrected, wt.white);
   return {
     reference: wr.illuminant,

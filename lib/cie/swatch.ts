@@ -1,7 +1,11 @@
 /**
  * Display values for a colour: sRGB (IEC 61966-2-1:1999) and Display P3 (SMPTE EG 432-1
  * primaries, D65 white, sRGB transfer curve), after adapting the colour from its illuminant's
- * white to D65 (Bradford). Colours outside a gamut are flagged, never silently clipped: the
+ * white to D65 (Bradford). Both RGB spaces are built from their published primaries on the
+ * white of the D65 tables the colours themselves use (CIE 15:2018, 2°, 360–830 nm at 1 nm), so
+ * a perfect transmitter lands on RGB (1, 1, 1) to rounding; the gamut test allows 5e-5 in
+ * linear RGB, half the last digit of the published 4-decimal matrices, so white and near-white
+ * are inside. Colours outside a gamut are flagged, never silently clipped: the
  * shown value is gamut-mapped by reducing CIELAB chroma at constant L* and hue (bisection on
  * C*ab) until it fits — a stated, hue-preserving mapping.
  *
@@ -13,19 +17,20 @@
 import Color from "npm:color@^5.0.0";
 import { adaptXyz, invert, multiply } from "./adaptation.ts";
 import type { Xyz } from "./tristimulus.ts";
-import { labToXyz, xyzToLab } from "./spaces.ts";
+import { labToXyz, xyzToLab, xyzToXy } from "./spaces.ts";
+import { GRID_NM } from "./grid.ts";
+import { tristimulusWeights } from "./tristimulus.ts";
 
 type Matrix = readonly [readonly number[], readonly number[], readonly number[]];
 
-/** XYZ (Y = 1) → linear sRGB, IEC 61966-2-1:1999 Amendment 1 (4-decimal matrix). */
-export const XYZ_TO_SRGB: Matrix = [
-  [3.2406, -1.5372, -0.4986],
-  [-0.9689, 1.8758, 0.0415],
-  [0.0557, -0.204, 1.057],
-];
+/**
+ * sRGB / Display P3 reference white, Y = 100: the white of the D65 tables the colours use
+ * (CIE 15:2018 D65 and 2° observer at 1 nm), whose chromaticity (0.31272, 0.32903) is the IEC
+ * 61966-2-1 white (0.3127, 0.3290) to its published precision.
+ */
+export const DISPLAY_WHITE: Xyz = { ...tristimulusWeights(GRID_NM, "D65", "2").white };
 
-/** sRGB / Display P3 reference white (D65, Y = 100), IEC 61966-2-1. */
-export const DISPLAY_WHITE: Xyz = { X: 95.047, Y: 100, Z: 108.883 };
+const DISPLAY_WHITE_XY = xyzToXy(DISPLAY_WHITE);
 
 /** RGB → XYZ matrix from primaries and white chromaticities (SMPTE RP 177 construction). */
 export function rgbToXyzMatrix(primaries: [number, number][], white: [number, number]): Matrix {
@@ -40,10 +45,27 @@ export function rgbToXyzMatrix(primaries: [number, number][], white: [number, nu
   return [0, 1, 2].map((r) => [0, 1, 2].map((c) => p[r]![c]! * s[c]!)) as unknown as Matrix;
 }
 
-/** XYZ (Y = 1) → linear Display P3 (D65 white 0.3127, 0.3290). */
-export const XYZ_TO_P3: Matrix = invert(
-  rgbToXyzMatrix([[0.68, 0.32], [0.265, 0.69], [0.15, 0.06]], [0.3127, 0.329]),
+/**
+ * XYZ (Y = 1) → linear sRGB: IEC 61966-2-1:1999 primaries (0.64, 0.33), (0.30, 0.60), (0.15,
+ * 0.06) on {@linkcode DISPLAY_WHITE}; equals the standard's 4-decimal matrix to its precision.
+ */
+export const XYZ_TO_SRGB: Matrix = invert(
+  rgbToXyzMatrix([[0.64, 0.33], [0.3, 0.6], [0.15, 0.06]], [
+    DISPLAY_WHITE_XY.x,
+    DISPLAY_WHITE_XY.y,
+  ]),
 );
+
+/** XYZ (Y = 1) → linear Display P3: SMPTE EG 432-1 primaries on {@linkcode DISPLAY_WHITE}. */
+export const XYZ_TO_P3: Matrix = invert(
+  rgbToXyzMatrix(
+    [[0.68, 0.32], [0.265, 0.69], [0.15, 0.06]],
+    [DISPLAY_WHITE_XY.x, DISPLAY_WHITE_XY.y],
+  ),
+);
+
+/** Allowance of the gamut test in linear RGB: half the last digit of a 4-decimal matrix. */
+export const GAMUT_TOLERANCE = 5e-5;
 
 /** sRGB transfer curve (IEC 61966-2-1): linear → encoded. */
 export function srgbEncode(v: number): number {
@@ -73,7 +95,72 @@ function linearRgb(m: Matrix, xyz: Xyz): [number, number, number] {
   return multiply(m, [xyz.X / 100, xyz.Y / 100, xyz.Z / 100]);
 }
 
-const inGamut = (rgb: number[]) => rgb.every((v) => v >= -1e-9 && v <= 1 + 1e-9);
+function inGamut(rgb: readonly number[]): boolean {
+  for (let i = 0; i < 3; i++) {
+    const v = rgb[i]!;
+    if (!(v >= -GAMUT_TOLERANCE && v <= 1 + GAMUT_TOLERANCE)) return false;
+  }
+  return true;
+}
+
+/** CSS hex strings by 24-bit value, so the library formats each colour once. */
+const HEX_CACHE = new Map<number, string>();
+const HEX_CACHE_LIMIT = 1 << 16;
+
+/** `#rrggbb` of encoded values 0..1 at 8 bits (IEC 61966-2-1 §5), formatted by `color`. */
+function hexOf(rgb: readonly [number, number, number]): string {
+  const bytes = rgb.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255)) as number[];
+  const key = (bytes[0]! << 16) | (bytes[1]! << 8) | bytes[2]!;
+  let hex = HEX_CACHE.get(key);
+  if (hex === undefined) {
+    hex = Color.rgb(bytes).hex().toLowerCase();
+    if (HEX_CACHE.size >= HEX_CACHE_LIMIT) HEX_CACHE.clear();
+    HEX_CACHE.set(key, hex);
+  }
+  return hex;
+}
+
+/** The inverse of the CIELAB f (CIE 15:2018 eq. 8.9), as in {@linkcode labToXyz}. */
+function labInverse(t: number): number {
+  return t > 6 / 29 ? t ** 3 : (108 / 841) * (t - 4 / 29);
+}
+
+/** Rounding allowance of the quick gamut test: t·t·t is within a few ulp of t ** 3. */
+const QUICK_MARGIN = 1e-9;
+
+/**
+ * Whether L*, a*, b* (D65 white) is inside the RGB space of `m`; no allocation. A quick pass
+ * cubes by multiplication; only when a channel lies within 1e-9 of a gamut edge, where that
+ * rounding could matter, is the decision taken with `t ** 3` exactly as {@linkcode labToXyz}.
+ */
+function insideAt(m: Matrix, L: number, a: number, b: number, yLinear: number): boolean {
+  const fy = (L + 16) / 116;
+  const tx = fy + a / 500, tz = fy - b / 200;
+  const x = DISPLAY_WHITE.X * (tx > 6 / 29 ? tx * tx * tx : (108 / 841) * (tx - 4 / 29)) / 100;
+  const z = DISPLAY_WHITE.Z * (tz > 6 / 29 ? tz * tz * tz : (108 / 841) * (tz - 4 / 29)) / 100;
+  let close = false;
+  for (let r = 0; r < 3; r++) {
+    const row = m[r]!;
+    const v = row[0]! * x + row[1]! * yLinear + row[2]! * z;
+    if (v < -GAMUT_TOLERANCE - QUICK_MARGIN || v > 1 + GAMUT_TOLERANCE + QUICK_MARGIN) return false;
+    if (!(v > -GAMUT_TOLERANCE + QUICK_MARGIN && v < 1 + GAMUT_TOLERANCE - QUICK_MARGIN)) {
+      close = true;
+    }
+  }
+  return close ? insideExactly(m, tx, tz, yLinear) : true;
+}
+
+/** The gamut decision with the arithmetic of {@linkcode labToXyz} and {@linkcode inGamut}. */
+function insideExactly(m: Matrix, tx: number, tz: number, yLinear: number): boolean {
+  const x = DISPLAY_WHITE.X * labInverse(tx) / 100;
+  const z = DISPLAY_WHITE.Z * labInverse(tz) / 100;
+  for (let r = 0; r < 3; r++) {
+    const row = m[r]!;
+    const v = row[0]! * x + row[1]! * yLinear + row[2]! * z;
+    if (!(v >= -GAMUT_TOLERANCE && v <= 1 + GAMUT_TOLERANCE)) return false;
+  }
+  return true;
+}
 
 function render(
   m: Matrix,
@@ -92,20 +179,16 @@ function render(
   if (outOfGamut) {
     const c = Math.hypot(lab.a, lab.b);
     const h = Math.atan2(lab.b, lab.a);
+    const cosH = Math.cos(h), sinH = Math.sin(h);
+    // Y depends on L* only, so it is the same at every trial chroma
+    const yLinear = DISPLAY_WHITE.Y * labInverse((L + 16) / 116) / 100;
     let lo = 0, hi = 1;
     for (let k = 0; k < 40; k++) {
       const mid = (lo + hi) / 2;
-      const trial = linearRgb(
-        m,
-        labToXyz({ L, a: mid * c * Math.cos(h), b: mid * c * Math.sin(h) }, DISPLAY_WHITE),
-      );
-      if (inGamut(trial)) lo = mid;
+      if (insideAt(m, L, mid * c * cosH, mid * c * sinH, yLinear)) lo = mid;
       else hi = mid;
     }
-    rgbLinear = linearRgb(
-      m,
-      labToXyz({ L, a: lo * c * Math.cos(h), b: lo * c * Math.sin(h) }, DISPLAY_WHITE),
-    );
+    rgbLinear = linearRgb(m, labToXyz({ L, a: lo * c * cosH, b: lo * c * sinH }, DISPLAY_WHITE));
   }
   const rgb = rgbLinear.map((v) => srgbEncode(Math.min(1, Math.max(0, v)))) as [
     number,
@@ -113,7 +196,7 @@ function render(
     number,
   ];
   const css = space === "srgb"
-    ? Color.rgb(rgb.map((v) => Math.round(v * 255))).hex().toLowerCase()
+    ? hexOf(rgb)
     : `color(display-p3 ${rgb.map((v) => v.toFixed(4)).join(" ")})`;
   return { rgb, unmapped, outOfGamut, css };
 }

@@ -2,7 +2,8 @@
  * Tristimulus values of a transmitting or reflecting object (CIE 15:2018 §7, eq. 7.1–7.2):
  * X = k Σ S(λ) x̄(λ) T(λ) Δλ with k = 100 / Σ S(λ) ȳ(λ) Δλ, so a perfect transmitter has Y = 100.
  * The data are carried to the 1 nm grid linearly (see interpolate.ts), so the whole chain is a
- * set of weighting factors per input grid, computed once and cached — for 10/20 nm grids these
+ * set of weighting factors per input grid, built in linear time from the interpolation's own
+ * linear form ({@linkcode resampleAdjoint}), computed once and cached — for 10/20 nm grids these
  * are the ASTM E308 weighting factors built by the ASTM E2022 procedure.
  *
  * @module
@@ -10,7 +11,12 @@
 import { getIlluminant, type Illuminant } from "./illuminants.ts";
 import { getObserver, type Observer } from "./observers.ts";
 import { GRID_END_NM, GRID_LENGTH, GRID_START_NM } from "./grid.ts";
-import { chooseMethod, type InterpolationMethod, resampleTo1nm } from "./interpolate.ts";
+import {
+  chooseMethod,
+  type InterpolationMethod,
+  resampleAdjoint,
+  resampleTo1nm,
+} from "./interpolate.ts";
 
 /** CIE XYZ tristimulus values on the Y = 100 scale. */
 export interface Xyz {
@@ -106,26 +112,9 @@ export function tristimulusWeights(
   const sum = (w: Float64Array) => w.reduce((a, b) => a + b, 0);
   let wx: Float64Array<ArrayBuffer> | undefined, wy = wx, wz = wx;
   if (method !== "pchip") {
-    wx = new Float64Array(n);
-    wy = new Float64Array(n);
-    wz = new Float64Array(n);
-    const unit = new Float64Array(n);
-    for (let k = 0; k < n; k++) {
-      unit.fill(0);
-      unit[k] = 1;
-      const r = resampleTo1nm(grid, unit, method).values;
-      let sx = 0, sy = 0, sz = 0;
-      for (let g = 0; g < GRID_LENGTH; g++) {
-        const v = r[g]!;
-        if (v === 0) continue;
-        sx += v * base.x[g]!;
-        sy += v * base.y[g]!;
-        sz += v * base.z[g]!;
-      }
-      wx[k] = sx;
-      wy[k] = sy;
-      wz[k] = sz;
-    }
+    wx = resampleAdjoint(grid, base.x, method);
+    wy = resampleAdjoint(grid, base.y, method);
+    wz = resampleAdjoint(grid, base.z, method);
   }
   const weights: TristimulusWeights = {
     wavelengthNm: grid,

@@ -1,7 +1,14 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
 import { deltaE2000 as publicDeltaE2000 } from "../../lib/mod.ts";
-import { deltaE2000, deltaE76, deltaE94, deltaECmc, xyzToLab } from "../../lib/cie/mod.ts";
+import {
+  deltaE2000,
+  deltaE2000Many,
+  deltaE76,
+  deltaE94,
+  deltaECmc,
+  xyzToLab,
+} from "../../lib/cie/mod.ts";
 
 // Sharma, Wu & Dalal (2005), Color Res. Appl. 30(1):21–30, Table 1 (kL = kC = kH = 1).
 const SHARMA: number[][] = [
@@ -98,5 +105,137 @@ describe("ΔE*ab, CIE94 and CMC(l:c)", () => {
       expect(deltaECmc(l1, l2, 2, 1)).toBeCloseTo(p.cmc21, 9);
       expect(deltaECmc(l1, l2, 1, 1)).toBeCloseTo(p.cmc11, 9);
     }
+  });
+});
+
+/**
+ * Independent route: a literal transcription of Sharma, Wu & Dalal (2005) eq. 1–25 with one
+ * trigonometric call per angle (the construction used before the allocation-free core).
+ */
+function literalDeltaE2000(l1: { L: number; a: number; b: number }, l2: typeof l1): number {
+  const DEG = Math.PI / 180;
+  const c1 = Math.hypot(l1.a, l1.b), c2 = Math.hypot(l2.a, l2.b);
+  const cBar7 = ((c1 + c2) / 2) ** 7;
+  const g = 0.5 * (1 - Math.sqrt(cBar7 / (cBar7 + 25 ** 7)));
+  const a1 = (1 + g) * l1.a, a2 = (1 + g) * l2.a;
+  const cp1 = Math.hypot(a1, l1.b), cp2 = Math.hypot(a2, l2.b);
+  const hue = (a: number, b: number) => {
+    if (a === 0 && b === 0) return 0;
+    const h = Math.atan2(b, a) / DEG;
+    return h < 0 ? h + 360 : h;
+  };
+  const hp1 = hue(a1, l1.b), hp2 = hue(a2, l2.b);
+  let dhp = 0;
+  if (cp1 * cp2 !== 0) {
+    dhp = hp2 - hp1;
+    if (dhp > 180) dhp -= 360;
+    else if (dhp < -180) dhp += 360;
+  }
+  const dHp = 2 * Math.sqrt(cp1 * cp2) * Math.sin((dhp / 2) * DEG);
+  const lBar = (l1.L + l2.L) / 2, cBarP = (cp1 + cp2) / 2;
+  let hBarP = hp1 + hp2;
+  if (cp1 * cp2 !== 0) {
+    if (Math.abs(hp1 - hp2) <= 180) hBarP = (hp1 + hp2) / 2;
+    else hBarP = hp1 + hp2 < 360 ? (hp1 + hp2 + 360) / 2 : (hp1 + hp2 - 360) / 2;
+  }
+  const t = 1 - 0.17 * Math.cos((hBarP - 30) * DEG) + 0.24 * Math.cos(2 * hBarP * DEG) +
+    0.32 * Math.cos((3 * hBarP + 6) * DEG) - 0.2 * Math.cos((4 * hBarP - 63) * DEG);
+  const dTheta = 30 * Math.exp(-(((hBarP - 275) / 25) ** 2));
+  const rC = 2 * Math.sqrt(cBarP ** 7 / (cBarP ** 7 + 25 ** 7));
+  const l50 = (lBar - 50) ** 2;
+  const sL = 1 + (0.015 * l50) / Math.sqrt(20 + l50);
+  const sC = 1 + 0.045 * cBarP, sH = 1 + 0.015 * cBarP * t;
+  const rT = -Math.sin(2 * dTheta * DEG) * rC;
+  const tl = (l2.L - l1.L) / sL, tc = (cp2 - cp1) / sC, th = dHp / sH;
+  return Math.sqrt(tl * tl + tc * tc + th * th + rT * tc * th);
+}
+
+/** Seeded uniform numbers (mulberry32), so a failure can be replayed. */
+function seeded(seed: number) {
+  let s = seed >>> 0;
+  return () => {
+    s = (s + 0x6d2b79f5) >>> 0;
+    let t = Math.imul(s ^ (s >>> 15), 1 | s);
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** Pairs that stress the hue terms: general, Δh′ near 180°, mean hue near 0°/360° and 275°. */
+function stressPairs(count: number) {
+  const rnd = seeded(20260512);
+  const polar = (L: number, c: number, hDeg: number) => ({
+    L,
+    a: c * Math.cos((hDeg * Math.PI) / 180),
+    b: c * Math.sin((hDeg * Math.PI) / 180),
+  });
+  const pairs: [{ L: number; a: number; b: number }, { L: number; a: number; b: number }][] = [];
+  for (let i = 0; i < count; i++) {
+    const L1 = 100 * rnd(), L2 = 100 * rnd(), c1 = 120 * rnd() ** 2, c2 = 120 * rnd() ** 2;
+    const h1 = 360 * rnd();
+    const kind = i % 6;
+    const h2 = kind === 0
+      ? 360 * rnd()
+      : kind === 1
+      ? h1 + 180 + (rnd() - 0.5) * 1e-6 * 10 ** (-6 * rnd())
+      : kind === 2
+      ? -h1 + (rnd() - 0.5) * 1e-5 // mean hue at 0°/360°
+      : kind === 3
+      ? 550 - h1 + (rnd() - 0.5) * 20 // mean hue near 275°
+      : kind === 4
+      ? h1 + (rnd() - 0.5) * 1e-9 // nearly equal hues
+      : h1 + 180 * (rnd() < 0.5 ? 1 : -1) + (rnd() - 0.5) * 60;
+    const p1 = polar(L1, c1, h1), p2 = polar(L2, c2, h2);
+    if (i % 50 === 0) p1.a = p1.b = 0; // neutral
+    if (i % 77 === 0) p2.b = 0;
+    pairs.push([p1, p2]);
+  }
+  return pairs;
+}
+
+describe("deltaE2000() allocation-free core", () => {
+  it("equals the literal transcription of Sharma et al. (2005) eq. 1–25 within 1e-9 on 120,000 seeded pairs", () => {
+    let worst = 0;
+    for (const [p1, p2] of stressPairs(120_000)) {
+      for (const [x, y] of [[p1, p2], [p2, p1]] as const) {
+        worst = Math.max(worst, Math.abs(deltaE2000(x, y) - literalDeltaE2000(x, y)));
+      }
+    }
+    expect(worst).toBeLessThan(1e-9);
+  });
+
+  it("equals the literal transcription on every Sharma et al. (2005) pair within 1e-12", () => {
+    for (const p of SHARMA) {
+      const l1 = lab(p[0]!, p[1]!, p[2]!), l2 = lab(p[3]!, p[4]!, p[5]!);
+      expect(Math.abs(deltaE2000(l1, l2) - literalDeltaE2000(l1, l2))).toBeLessThan(1e-12);
+    }
+  });
+
+  it("parametric factors: kL = 2 halves the lightness term (Sharma et al. eq. 22), pure ΔL gives ΔL/(2·SL)", () => {
+    // closed form: equal a, b → ΔE00 = |ΔL′| / (kL·SL), SL = 1 + 0.015 (L̄ − 50)² / √(20 + (L̄ − 50)²)
+    const d = deltaE2000(lab(40, 10, 10), lab(60, 10, 10), { kL: 2 });
+    expect(d).toBeCloseTo(20 / 2, 12);
+  });
+});
+
+describe("deltaE2000Many()", () => {
+  it("gives the Sharma et al. (2005) Table 1 values and equals deltaE2000 pair by pair", () => {
+    const l1 = new Float64Array(SHARMA.length * 3), l2 = new Float64Array(SHARMA.length * 3);
+    SHARMA.forEach((p, i) => {
+      l1.set([p[0]!, p[1]!, p[2]!], 3 * i);
+      l2.set([p[3]!, p[4]!, p[5]!], 3 * i);
+    });
+    const out = deltaE2000Many(l1, l2, new Float64Array(SHARMA.length));
+    SHARMA.forEach((p, i) => {
+      expect(Math.abs(out[i]! - p[6]!)).toBeLessThan(1e-4);
+      expect(out[i]).toBe(deltaE2000(lab(p[0]!, p[1]!, p[2]!), lab(p[3]!, p[4]!, p[5]!)));
+    });
+  });
+
+  it("refuses lengths that are not equal multiples of 3 and a short output", () => {
+    expect(() => deltaE2000Many(new Float64Array(4), new Float64Array(4))).toThrow(RangeError);
+    expect(() => deltaE2000Many(new Float64Array(6), new Float64Array(3))).toThrow(RangeError);
+    expect(() => deltaE2000Many(new Float64Array(6), new Float64Array(6), new Float64Array(1)))
+      .toThrow(RangeError);
   });
 });
