@@ -31,7 +31,8 @@ export function assignBands(bands: FittedBand[], host?: string, perBand = 3): Ba
   const out: BandAssignment[] = [];
   bands.forEach((band, bandIndex) => {
     const scored = entries.map((e) => {
-      const tol = Math.max(300, 0.25 * Math.max(e.fwhmCm1, band.fwhmCm1)) + 2 * band.centerCm1Sigma;
+      const tol = Math.max(300, 0.25 * Math.max(e.fwhmCm1, band.fwhmCm1)) +
+        2 * (band.centerCm1Sigma ?? 0);
       const dPos = band.centerCm1 - e.centerCm1;
       const widthRatio = Math.max(band.fwhmCm1, e.fwhmCm1) /
         Math.max(1, Math.min(band.fwhmCm1, e.fwhmCm1));
