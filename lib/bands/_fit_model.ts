@@ -29,10 +29,12 @@ export interface FittedBand {
   fwhmCm1: number;
   fwhmCm1Sigma: number | null;
   height: number;
-  heightSigma: number | null;
+  /** σ of the height (linear, never held); Infinity when the data do not determine it. */
+  heightSigma: number;
   /** Integral over cm⁻¹, in ordinate units × cm⁻¹. */
   area: number;
-  areaSigma: number | null;
+  /** σ of the area; Infinity when the data do not determine the height. */
+  areaSigma: number;
   /** Parameters that ended at a bound: fixed there, kept out of the covariance. */
   held?: ("centerCm1" | "fwhmCm1")[];
 }
@@ -175,10 +177,10 @@ export function fitModelOnce(data: FitData, spec: ModelSpec): ModelFit {
   const sig = (k: number) => fit.sigmas[k] ?? null;
   const bands: FittedBand[] = spec.bands.map((b, k) => {
     const c = fit.nonlinear[2 * k]!, f = fit.nonlinear[2 * k + 1]!, h = fit.linear[k]!;
-    const sc = sig(2 * k), sf = sig(2 * k + 1), sh = sig(q + k);
+    const sc = sig(2 * k), sf = sig(2 * k + 1), sh = sig(q + k) ?? Infinity;
     const unit = bandArea(1, 1, b.shape);
-    let areaSigma: number | null = null;
-    if (sh !== null) {
+    let areaSigma = Infinity;
+    if (Number.isFinite(sh)) {
       const cov = sf === null ? 0 : fit.covariance[(2 * k + 1) * p + q + k]!;
       const v = unit * unit * (f * f * sh * sh + h * h * (sf ?? 0) ** 2 + 2 * h * f * cov);
       areaSigma = Math.sqrt(Math.max(v, 0));

@@ -53,6 +53,8 @@ export interface BandFit {
   residualRms: number;
   /** RMS of the per-point noise σ over the fitted points: what residualRms should be. */
   noiseSigma: number;
+  /** χ²/(n − p) with the per-point noise σ: near 1 when the model and the noise are right. */
+  reducedChi2: number;
   converged: boolean;
   iterations: number;
   /** What the ordinate was: absorbance (decadic) or alpha (cm⁻¹). */
@@ -185,7 +187,7 @@ function detectOn(prep: Prepared, maxBands: number): BandCandidate[] {
 /** A band is dropped when the data cannot tell it from zero, or it sits on the range end. */
 function insignificant(b: FittedBand): boolean {
   return !(b.height > 0) ||
-    (b.heightSigma !== null && b.height < MIN_BAND_SIGNIFICANCE * b.heightSigma) ||
+    b.height < MIN_BAND_SIGNIFICANCE * b.heightSigma ||
     (b.held?.includes("centerCm1") ?? false);
 }
 
@@ -248,45 +250,64 @@ export function fitBandsCm1(
     }
     best = attempt(spec(bands, edgeOption === true));
   } else {
-    let bands = startsFrom(detectOn(prep, maxBands), narrow);
+    type Entry = NonNullable<ReturnType<typeof attempt>>;
+    // drop bands the data cannot tell from zero, one refit at a time
+    const prune = (e: Entry | undefined): Entry | undefined => {
+      for (let round = 0; e && round < 8; round++) {
+        if (!e.fit.bands.some(insignificant)) break;
+        const bands = startsOf(e.fit).filter((_, k) => !insignificant(e!.fit.bands[k]!));
+        e = attempt({ ...e.fit.spec, bands });
+      }
+      return e;
+    };
+    // an edge term must absorb (positive amplitude) to be an edge
+    const valid = (e: Entry | undefined): e is Entry =>
+      e !== undefined && !(e.fit.baseline.edge && !(e.fit.baseline.edge.amplitude > 0));
+    /** Pruned, and refitted without the edge term when that term came out negative. */
+    const settle = (s: ModelSpec): Entry | undefined => {
+      const e = prune(attempt(s));
+      if (!e || edgeOption !== "auto" || valid(e)) return e;
+      const plain: ModelSpec = { ...(e as Entry).fit.spec };
+      delete plain.edgeWidthCm1;
+      return prune(attempt(plain));
+    };
+    const bands = startsFrom(detectOn(prep, maxBands), narrow);
     const edges = edgeOption === "auto" ? [false, true] : [edgeOption];
     for (const edge of edges) {
-      const e = attempt(spec(bands, edge));
-      if (e && (!best || e.bic < best.bic)) best = e;
+      const e = settle(spec(bands, edge));
+      if (valid(e) && (!best || e.bic < best.bic)) best = e;
     }
     if (!best) {
       throw new RangeError(`Cannot fit bands: only ${n} usable points`);
-    }
-    // drop bands the data cannot tell from zero, one refit at a time
-    for (let round = 0; round < 8; round++) {
-      const weak = best.fit.bands.filter(insignificant);
-      if (weak.length === 0) break;
-      bands = startsOf(best.fit).filter((_, k) => !insignificant(best!.fit.bands[k]!));
-      const again = attempt({ ...best.fit.spec, bands });
-      if (!again) break;
-      best = again;
     }
     for (let round = 0; round < MAX_ROUNDS; round++) {
       const residual = data.y.map((v, i) => v - best!.fit.model[i]!);
       const feature = residualStructure(data.x, residual, data.sigma).features[0];
       if (!feature) break;
       const current = startsOf(best.fit);
-      const options2: BandStart[][] = [];
+      const larger: BandStart[][] = [];
       if (current.length < maxBands) {
         const width = Math.max(
           prep.minFwhm(feature.centerCm1),
           0.6 * (feature.toCm1 - feature.fromCm1),
         );
-        options2.push(
-          [...current, {
-            centerCm1: feature.centerCm1,
-            fwhmCm1: width,
-            shape: width < narrow ? "lorentzian" as const : "gaussian" as const,
-          }].sort((a, b) => a.centerCm1 - b.centerCm1),
+        // a new band on top of an existing one is a split, not an addition
+        const crowded = current.some((b) =>
+          Math.abs(b.centerCm1 - feature.centerCm1) < 0.25 * Math.max(b.fwhmCm1, width)
         );
+        if (!crowded) {
+          larger.push(
+            [...current, {
+              centerCm1: feature.centerCm1,
+              fwhmCm1: width,
+              shape: width < narrow ? "lorentzian" as const : "gaussian" as const,
+            }].sort((a, b) => a.centerCm1 - b.centerCm1),
+          );
+        }
+        // a band at the resolution cap cannot be split
         const near = current
           .map((b, k) => ({ k, d: Math.abs(b.centerCm1 - feature.centerCm1) / b.fwhmCm1 }))
-          .filter((e) => e.d < 1)
+          .filter((e) => e.d < 1 && !best!.fit.bands[e.k]!.held?.includes("fwhmCm1"))
           .sort((a, b) => a.d - b.d)[0];
         if (near) {
           const b = current[near.k]!;
@@ -295,17 +316,17 @@ export function fitBandsCm1(
             fwhmCm1: 0.7 * b.fwhmCm1,
             shape: b.shape,
           }));
-          options2.push(
+          larger.push(
             [...current.filter((_, k) => k !== near.k), ...split].sort((a, c) =>
               a.centerCm1 - c.centerCm1
             ),
           );
         }
       }
-      let bestTry: typeof best | undefined;
-      for (const bands2 of options2) {
-        const e = attempt({ ...best.fit.spec, bands: bands2 });
-        if (!e || e.fit.bands.some(insignificant)) continue;
+      let bestTry: Entry | undefined;
+      for (const bands2 of larger) {
+        const e = settle({ ...best.fit.spec, bands: bands2 });
+        if (!valid(e) || !e.fit.converged) continue;
         if (!bestTry || e.bic < bestTry.bic) bestTry = e;
       }
       if (!bestTry || !(bestTry.bic < best.bic)) break;
@@ -360,6 +381,7 @@ function toBandFit(
     baseline: fit.baseline,
     residualRms: Math.sqrt(rss / n),
     noiseSigma: Math.sqrt(noise / n),
+    reducedChi2: fit.chi2 / Math.max(1, n - fit.parameters),
     converged: fit.converged,
     iterations: fit.iterations,
     ordinate,
@@ -432,15 +454,20 @@ export function spectrumNoise(
 /**
  * Fits the bands of a spectrum on its usable range: α when the spectrum holds α, else decadic
  * absorbance as measured; weights from the propagated photometric noise.
+ *
+ * @param noise The spectrum's noise and usable range when already known (from {@linkcode spectrumNoise}).
  */
-export function fitSpectrumBands(spectrum: Spectrum, options: SpectrumFitOptions = {}): BandFit {
-  const { values, sigma, usable, ordinate } = spectrumNoise(spectrum, options);
+export function fitSpectrumBands(
+  spectrum: Spectrum,
+  options: SpectrumFitOptions = {},
+  noise: ReturnType<typeof spectrumNoise> = spectrumNoise(spectrum, options),
+): BandFit {
   const x = spectrum.wavelengthNm.map((nm) => 1e7 / nm);
-  const opts: FitOptions = { ...options, sigma, usable: usable.usable };
+  const opts: FitOptions = { ...options, sigma: noise.sigma, usable: noise.usable.usable };
   if (options.rangeNm) opts.rangeCm1 = [1e7 / options.rangeNm[1], 1e7 / options.rangeNm[0]];
   if (options.resolutionNm !== undefined && options.minFwhmCm1 === undefined) {
     const r = options.resolutionNm;
     opts.minFwhmCm1 = (c) => (c * c * r) / 1e7;
   }
-  return fitBandsCm1(x, values, opts, ordinate);
+  return fitBandsCm1(x, noise.values, opts, noise.ordinate);
 }

@@ -10,6 +10,7 @@ export * from "./ordinate_noise.ts";
 export * from "./usable_range.ts";
 export * from "./residual_structure.ts";
 export * from "./fit_bands.ts";
+export * from "./analyse_bands.ts";
 export * from "./assign_bands.ts";
 export * from "./absorption_edge.ts";
 export * from "./figure_of_merit.ts";

@@ -65,18 +65,21 @@ export function ordinateNoise(
   const g2 = idx.map((i) => (gain ? gain[i]! ** 2 : 0));
   let a = 0, b = 0;
   let keep = idx.map(() => true);
-  // least squares of r² on [1, g²] with both coefficients ≥ 0, then again without points
-  // beyond 3σ of the first model (a sharp line leaks into the smoother's residual)
-  for (let pass = 0; pass < 3; pass++) {
+  // r² has variance 2σ⁴, so the regression of r² on [1, g²] is weighted by 1/σ⁴ of the
+  // previous pass (iteratively reweighted least squares), both coefficients kept ≥ 0, and
+  // points beyond 3σ of the previous model left out (a sharp line leaks into the residual)
+  for (let pass = 0; pass < 6; pass++) {
     let s11 = 0, s12 = 0, s22 = 0, t1 = 0, t2 = 0, count = 0;
     for (let k = 0; k < idx.length; k++) {
       if (!keep[k]) continue;
+      const model = pass === 0 ? 1 : a + b * g2[k]!;
+      const w = 1 / Math.max(model * model, 1e-300);
       count++;
-      s11 += 1;
-      s12 += g2[k]!;
-      s22 += g2[k]! ** 2;
-      t1 += r2[k]!;
-      t2 += g2[k]! * r2[k]!;
+      s11 += w;
+      s12 += w * g2[k]!;
+      s22 += w * g2[k]! ** 2;
+      t1 += w * r2[k]!;
+      t2 += w * g2[k]! * r2[k]!;
     }
     if (count < 3) break;
     const det = s11 * s22 - s12 * s12;
@@ -95,7 +98,7 @@ export function ordinateNoise(
       b = 0;
       a = t1 / s11;
     }
-    keep = r2.map((v, k) => v <= 9 * (a + b * g2[k]!));
+    if (pass >= 1) keep = r2.map((v, k) => v <= 9 * (a + b * g2[k]!));
   }
   // mean of a χ²₁ variable given it is below 9: F₃(9)/F₁(9) = 0.97071/0.99730 = 0.97334
   // (closed form, x·f₁(x) = f₃(x) for χ² densities)

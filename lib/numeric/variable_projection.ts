@@ -280,13 +280,16 @@ export function variableProjection(
   let rss = project(theta, solver, true);
   let current = solver, spare = trialSolver;
   jacobian(current);
-  let lambda = 1e-3, iterations = 0, converged = false;
+  // damping update by the gain ratio ρ = actual/predicted decrease (Nielsen's rule, as in
+  // Madsen, Nielsen & Tingleff, Methods for Non-Linear Least Squares Problems, 2004, §3.2),
+  // which stops the undamped zig-zag of a line only a grid step or two wide
+  let lambda = 1e-3, nu = 2, iterations = 0, converged = false;
   const atBound = (k: number, v: number, dir: number) =>
     (dir < 0 && lower !== undefined && v <= lower[k]!) ||
     (dir > 0 && upper !== undefined && v >= upper[k]!);
   while (iterations < maxIterations && q > 0) {
     iterations++;
-    let improved = false, relative = Infinity;
+    let improved = false, relative = Infinity, stepSmall = false;
     for (let attempt = 0; attempt < 40; attempt++) {
       // parameters at a bound that the gradient pushes outward are frozen for this step
       sys.set(jtj);
@@ -299,23 +302,33 @@ export function variableProjection(
         }
       }
       if (!dampedSolve(sys, rhs, q, lambda, l, step)) {
-        lambda *= 10;
+        lambda *= nu;
+        nu *= 2;
         continue;
       }
-      for (let k = 0; k < q; k++) trial[k] = theta[k]! + step[k]!;
+      let predicted = 0;
+      stepSmall = true;
+      for (let k = 0; k < q; k++) {
+        trial[k] = theta[k]! + step[k]!;
+        predicted += step[k]! * (rhs[k]! + lambda * sys[k * q + k]! * step[k]!);
+        if (Math.abs(step[k]!) > 1e-9 * (Math.abs(theta[k]!) + 1e-9)) stepSmall = false;
+      }
       clamp(trial);
       const rssTrial = project(trial, spare, true);
       if (rssTrial < rss) {
         relative = (rss - rssTrial) / Math.max(rss, 1e-300);
+        const rho = predicted > 0 ? (rss - rssTrial) / predicted : 1;
         theta.set(trial);
         rss = rssTrial;
         [current, spare] = [spare, current];
-        lambda = Math.max(lambda / 10, 1e-12);
+        lambda = Math.max(lambda * Math.max(1 / 3, 1 - (2 * rho - 1) ** 3), 1e-12);
+        nu = 2;
         improved = true;
         break;
       }
-      lambda *= 10;
-      if (lambda > 1e14) break;
+      lambda *= nu;
+      nu *= 2;
+      if (lambda > 1e14 || stepSmall) break;
     }
     if (!improved) {
       // no step lowers the RSS at any damping: a (local) optimum
@@ -323,7 +336,7 @@ export function variableProjection(
       break;
     }
     jacobian(current);
-    if (relative < tolerance) {
+    if (relative < tolerance || stepSmall) {
       converged = true;
       break;
     }

@@ -51,7 +51,7 @@ export function syntheticExport(
   const truth = wavelengthNm.map((nm) => {
     const nu = 1e7 / nm;
     let a = 0.05 + 0.01 * (nu - 22000) / 11000 + 0.01 * (nu / 20000) ** 4;
-    if (edge) a += edge[0] * Math.exp((nu - edge[1]) / edge[2]);
+    if (edge) a += edge[0]! * Math.exp((nu - edge[1]!) / edge[2]!);
     for (const b of bands) a += b.height * Math.exp(-K * ((nu - b.centerCm1) / b.fwhmCm1) ** 2);
     return a;
   });
@@ -74,4 +74,38 @@ export function pairAndSeparated(seed: number): TrueBand[] {
     { centerCm1: c1, fwhmCm1: f1, height: 0.3 + 0.6 * u() },
     { centerCm1: c2, fwhmCm1: f2, height: 0.3 + 0.6 * u() },
   ];
+}
+
+/**
+ * α(E) of an edge: above the join the Tauc form, direct allowed α = A√(E − Eg)/E or
+ * indirect allowed α = A(E − Eg)²/E (Tauc, Grigorovici & Vancu 1966); below it the Urbach
+ * tail α(Ej)·exp((E − Ej)/Eu) (Urbach 1953), joined where d ln α/dE = 1/Eu so that α and its
+ * logarithmic slope are continuous. Returns the join energy with the function.
+ */
+export function edgeAlpha(
+  kind: "direct" | "indirect",
+  gapEv: number,
+  urbachEv: number,
+  amplitude: number,
+): { alpha: (e: number) => number; joinEv: number } {
+  const tauc = (e: number) =>
+    e <= gapEv
+      ? 0
+      : kind === "direct"
+      ? (amplitude * Math.sqrt(e - gapEv)) / e
+      : (amplitude * (e - gapEv) ** 2) / e;
+  const slope = (e: number) =>
+    kind === "direct" ? 1 / (2 * (e - gapEv)) - 1 / e : 2 / (e - gapEv) - 1 / e;
+  // d ln α/dE falls from +∞ at Eg: bisect for slope = 1/Eu
+  let lo = gapEv + 1e-9, hi = gapEv + 2;
+  for (let k = 0; k < 200; k++) {
+    const mid = (lo + hi) / 2;
+    if (slope(mid) > 1 / urbachEv) lo = mid;
+    else hi = mid;
+  }
+  const joinEv = (lo + hi) / 2, at = tauc(joinEv);
+  return {
+    alpha: (e) => (e >= joinEv ? tauc(e) : at * Math.exp((e - joinEv) / urbachEv)),
+    joinEv,
+  };
 }
