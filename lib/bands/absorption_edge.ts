@@ -131,6 +131,7 @@ function growDown(
   lowest: number,
   minPoints: number,
   inRange: (k: number) => boolean,
+  stillFits: (sums: Sums, k: number, x: number) => boolean = () => true,
 ): { start: number; sums: Sums } | undefined {
   if (!inRange(end)) return undefined;
   const sums = new Sums(points[end]!.x);
@@ -143,6 +144,7 @@ function growDown(
     trial.add(points[start - 1]!);
     const k = end - start + 2;
     if (k >= minPoints && Math.abs(trial.curvatureT(k)) > CURVATURE_T) break;
+    if (k > minPoints && !stillFits(sums, k - 1, points[start - 1]!.x)) break;
     sums.s.set(trial.s);
     start--;
     if (end - start + 1 >= minPoints) {
@@ -212,7 +214,12 @@ export function taucGap(
     const sa = s[k];
     return sa === undefined ? a[k]! > 0 : a[k]! > ABOVE_NOISE * sa;
   };
-  const win = growDown(points, n - 1, 0, minPoints, aboveNoise);
+  // a point below the gap of the window so far belongs to the tail, not to the Tauc region
+  const aboveGap = (sums: Sums, k: number, x: number) => {
+    const l = sums.line(k);
+    return l.b > 0 && x > sums.origin - l.a / l.b;
+  };
+  const win = growDown(points, n - 1, 0, minPoints, aboveNoise, aboveGap);
   if (!win) return { message: "no straight Tauc region below the top of the data" };
   const k = n - win.start;
   const l = win.sums.line(k);

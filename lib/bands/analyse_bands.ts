@@ -7,7 +7,7 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import { nmToEv } from "../spectrum/axis.ts";
+import { HC_EV_NM, nmToEv } from "../spectrum/axis.ts";
 import {
   type BandFit,
   fitSpectrumBands,
@@ -147,6 +147,29 @@ function edgeOf(
  */
 export function analyseBands(spectrum: Spectrum, options: BandAnalysisOptions = {}): BandAnalysis {
   const noise = spectrumNoise(spectrum, options);
+  const early: string[] = [];
+  // the edge first: above the start of its Tauc region the spectrum is the edge itself, which
+  // no sum of bands and exponential tail describes, so it is left out of the band fit
+  const edge = edgeOf(spectrum, options.tauc ?? "direct", noise, early);
+  if (edge.fromEv !== null) {
+    const fromNm = HC_EV_NM / edge.toEv!, toNm = HC_EV_NM / edge.fromEv;
+    const usable = noise.usable.usable.slice();
+    spectrum.wavelengthNm.forEach((w, i) => {
+      if (w <= toNm) usable[i] = 0;
+    });
+    noise.usable = {
+      ...noise.usable,
+      usable,
+      excluded: [
+        ...noise.usable.excluded.filter((e) => e.fromNm > toNm),
+        {
+          fromNm: Math.min(fromNm, spectrum.wavelengthNm[0]!),
+          toNm,
+          reason: "absorption edge" as const,
+        },
+      ].sort((a, b) => a.fromNm - b.fromNm),
+    };
+  }
   const fit = fitSpectrumBands(spectrum, options, noise);
   const warnings = [...fit.warnings];
   for (const e of noise.usable.excluded) {
@@ -184,6 +207,9 @@ export function analyseBands(spectrum: Spectrum, options: BandAnalysisOptions = 
     result.bandsAlpha = fit.bands;
     result.alphaBase = "natural";
   }
-  if (options.tauc) result.edge = edgeOf(spectrum, options.tauc, noise, warnings);
+  if (options.tauc) {
+    result.edge = edge;
+    warnings.push(...early);
+  }
   return result;
 }

@@ -11,7 +11,11 @@
 import { smoothResidual } from "./ordinate_noise.ts";
 
 /** Why a stretch of a spectrum was left out. */
-export type ExclusionReason = "photometric floor" | "above absorbance limit" | "clipped";
+export type ExclusionReason =
+  | "photometric floor"
+  | "above absorbance limit"
+  | "clipped"
+  | "absorption edge";
 
 /** A stretch left out of detection and fitting. */
 export interface ExcludedRange {

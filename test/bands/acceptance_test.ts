@@ -190,7 +190,7 @@ describe("edge analysis on synthetic α spectra (Tauc form joined to an Urbach t
         expect(Math.abs(e.gapEv! - eg)).toBeLessThan(0.03);
         expect(e.gapEvSigma!).toBeGreaterThan(0);
         // the window starts at the edge, not in the tail far below it
-        expect(e.fromEv!).toBeGreaterThan(eg - 2 * eu);
+        expect(e.fromEv!).toBeGreaterThan(eg - eu);
         expect(Math.abs(e.urbachEv! - eu) / eu).toBeLessThan(0.25);
         expect(e.urbachToEv!).toBeLessThanOrEqual(e.fromEv!);
       }
