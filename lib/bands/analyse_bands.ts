@@ -190,7 +190,7 @@ export function analyseBands(spectrum: Spectrum, options: BandAnalysisOptions = 
     noiseSigma: fit.noiseSigma,
     reducedChi2: fit.reducedChi2,
     converged: fit.converged,
-    assignments: assignBands(fit.bands, options.host),
+    assignments: assignBands(fit.bands, options.host, 3, spectrum.polarisation),
     excluded: noise.usable.excluded,
     warnings,
     criterion: fit.criterion,
