@@ -189,16 +189,20 @@ export function taucGap(
   if (n < minPoints) return { message: "too few usable points for an edge analysis" };
   const top = e[n - 1]!;
   const power = exponent === "direct" ? 2 : 0.5;
-  // the edge must rise toward the top of the data: the highest usable α clearly above the
-  // lowest, and still climbing over the last points
-  const last = Math.max(minPoints, Math.round(n * 0.05));
-  const slopeSums = new Sums(top);
-  for (let k = n - last; k < n; k++) slopeSums.add({ x: e[k]!, y: a[k]!, w: 1 });
-  const tail = slopeSums.line(last);
-  const minA = Math.min(...a);
-  const noise = Math.sqrt(Math.max(tail.varA, 0)) * Math.sqrt(last);
-  const rising = tail.b > 3 * Math.sqrt(Math.max(tail.varB, 0)) &&
-    a[n - 1]! - minA > Math.max(10 * noise, 0.5 * Math.abs(minA));
+  // the edge must rise toward the top of the data: the mean α of the last points clearly
+  // above that of the points before them, and the top well above the median of the data
+  const last = Math.max(minPoints, Math.round(n * 0.02));
+  const block = (from: number, to: number) => {
+    const v = a.slice(Math.max(0, from), to);
+    const mean = v.reduce((p, q) => p + q, 0) / v.length;
+    const sd = Math.sqrt(v.reduce((p, q) => p + (q - mean) ** 2, 0) / Math.max(1, v.length - 1));
+    return { mean, se: sd / Math.sqrt(v.length) };
+  };
+  const top1 = block(n - last, n), top2 = block(n - 2 * last, n - last);
+  const median = [...a].sort((p, q) => p - q)[Math.floor(n / 2)]!;
+  const sTop = s[n - 1];
+  const rising = top1.mean > top2.mean + 3 * Math.hypot(top1.se, top2.se) &&
+    a[n - 1]! - median > Math.max(sTop !== undefined ? 10 * sTop : 0, 0.2 * Math.abs(median));
   if (!rising) {
     return { message: `edge above ${top.toFixed(2)} eV: outside the data` };
   }

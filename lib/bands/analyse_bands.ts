@@ -129,6 +129,15 @@ function edgeOf(
   } else {
     report.message = t.message;
     if (/outside the data/.test(t.message)) return report;
+    // a top cut off by the photometric floor is an edge inside the data, but saturated
+    const cut = noise.usable.excluded.find((e) =>
+      e.fromNm <= spectrum.wavelengthNm[0]! && e.reason !== "clipped"
+    );
+    if (cut) {
+      report.message = `edge saturated below ${
+        cut.toNm.toFixed(0)
+      } nm (${cut.reason}): ${t.message}`;
+    }
   }
   const u = urbachEnergy(ev, alpha, below, opts);
   if (u) {

@@ -196,6 +196,21 @@ describe("edge analysis on synthetic α spectra (Tauc form joined to an Urbach t
       }
     });
   }
+  it("a saturated absorbance export: the edge is said to be saturated, no gap is given, Eu of the tail within 25 %", () => {
+    // the generator's edge A₀·exp((ν̃ − ν̃₀)/w) with w = 1200 cm⁻¹ is an Urbach tail of
+    // Eu = 1200 cm⁻¹ × hc = 1200 × 1.23984e-4 eV (hc = 1.23984e-4 eV·cm, CODATA)
+    const eu = 1200 * 1.2398419843320026e-4;
+    for (const seed of [1, 2, 3]) {
+      const ex = syntheticExport([], seed);
+      const r = analyseBands(absorbanceSpectrum(ex.wavelengthNm, ex.absorbance, 2), {
+        tauc: "direct",
+      });
+      expect(r.edge!.gapEv).toBeNull();
+      expect(r.edge!.message).toMatch(/^edge saturated below 3\d\d nm \(photometric floor\)/);
+      expect(Math.abs(r.edge!.urbachEv! - eu) / eu).toBeLessThan(0.25);
+      expect(r.bands.length).toBe(0);
+    }
+  });
   it("an edge above the measured range is said to be outside the data, with no number", () => {
     const { alpha } = edgeAlpha("direct", 4.6, 0.05, 2e4);
     const values = nm.map((w) => alpha(1239.8419843320026 / w) + 0.5);
