@@ -28,7 +28,7 @@ import {
 } from "./_fit_model.ts";
 import { residualStructure } from "./residual_structure.ts";
 import { ordinateNoise } from "./ordinate_noise.ts";
-import { usableRange, type UsableRangeOptions } from "./usable_range.ts";
+import { type ExcludedRange, usableRange, type UsableRangeOptions } from "./usable_range.ts";
 
 export type { FittedBand, FittedBaseline } from "./_fit_model.ts";
 
@@ -67,6 +67,8 @@ export interface BandFit {
   runsZ: number;
   /** Plain-language notes: unconverged fit, held widths, residual structure left. */
   warnings: string[];
+  /** Stretches left out as carrying no information (set by {@linkcode fitSpectrumBands}). */
+  excluded?: ExcludedRange[];
   /** The data, model and noise on the fitted wavenumber grid, for plots. */
   curve: {
     cm1: Float64Array<ArrayBuffer>;
@@ -469,5 +471,7 @@ export function fitSpectrumBands(
     const r = options.resolutionNm;
     opts.minFwhmCm1 = (c) => (c * c * r) / 1e7;
   }
-  return fitBandsCm1(x, noise.values, opts, noise.ordinate);
+  const fit = fitBandsCm1(x, noise.values, opts, noise.ordinate);
+  fit.excluded = noise.usable.excluded;
+  return fit;
 }
