@@ -72,6 +72,7 @@ class Sums {
     return {
       a,
       b,
+      chi2: rss,
       varA: (s2! / det) * s2r,
       varB: (s0! / det) * s2r,
       covAB: (-s1! / det) * s2r,
@@ -131,7 +132,7 @@ function growDown(
   lowest: number,
   minPoints: number,
   inRange: (k: number) => boolean,
-  stillFits: (sums: Sums, k: number, x: number) => boolean = () => true,
+  stillFits: (sums: Sums, k: number, next: Point) => boolean = () => true,
 ): { start: number; sums: Sums } | undefined {
   if (!inRange(end)) return undefined;
   const sums = new Sums(points[end]!.x);
@@ -144,7 +145,7 @@ function growDown(
     trial.add(points[start - 1]!);
     const k = end - start + 2;
     if (k >= minPoints && Math.abs(trial.curvatureT(k)) > CURVATURE_T) break;
-    if (k > minPoints && !stillFits(sums, k - 1, points[start - 1]!.x)) break;
+    if (k > minPoints && !stillFits(sums, k - 1, points[start - 1]!)) break;
     sums.s.set(trial.s);
     start--;
     if (end - start + 1 >= minPoints) {
@@ -218,10 +219,14 @@ export function taucGap(
     const sa = s[k];
     return sa === undefined ? a[k]! > 0 : a[k]! > ABOVE_NOISE * sa;
   };
-  // a point below the gap of the window so far belongs to the tail, not to the Tauc region
-  const aboveGap = (sums: Sums, k: number, x: number) => {
+  // a point below the gap of the window so far, or more than 4σ off its line (σ scaled by
+  // the window's own χ²/(k − 2), so a σ of the wrong size does not decide), belongs to the
+  // tail, not to the Tauc region
+  const aboveGap = (sums: Sums, k: number, next: Point) => {
     const l = sums.line(k);
-    return l.b > 0 && x > sums.origin - l.a / l.b;
+    const off = next.y - (l.a + l.b * (next.x - sums.origin));
+    return l.b > 0 && next.x > sums.origin - l.a / l.b &&
+      off * off * next.w <= 16 * Math.max(1, l.chi2 / Math.max(1, k - 2));
   };
   const win = growDown(points, n - 1, 0, minPoints, aboveNoise, aboveGap);
   if (!win) return { message: "no straight Tauc region below the top of the data" };

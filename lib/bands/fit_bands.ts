@@ -27,7 +27,7 @@ import {
   type ModelSpec,
 } from "./_fit_model.ts";
 import { residualStructure } from "./residual_structure.ts";
-import { ordinateNoise } from "./ordinate_noise.ts";
+import { ordinateNoise, smoothResidual } from "./ordinate_noise.ts";
 import { type ExcludedRange, usableRange, type UsableRangeOptions } from "./usable_range.ts";
 
 export type { FittedBand, FittedBaseline } from "./_fit_model.ts";
@@ -448,6 +448,12 @@ export function spectrumNoise(
       const t = 10 ** -Math.min(a, 8);
       return alpha ? 1 / (t * (d! / 10)) : 1 / (t * Math.LN10);
     });
+  }
+  // α without a thickness: T is unknown, so the noise is modelled as σ² = a + b·α², growing
+  // with α as it does where α comes from a falling T (our choice)
+  if (!smoothGain) {
+    const { smooth } = smoothResidual(values);
+    smoothGain = Float64Array.from(smooth, (v) => Math.abs(v));
   }
   const noise = ordinateNoise(values, smoothGain, usable.usable);
   return { values, sigma: noise.sigma, usable, ordinate: alpha ? "alpha" : "absorbance" };
