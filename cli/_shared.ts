@@ -3,9 +3,9 @@
  *
  * @module
  */
-import { parseArgs, type ParseArgsOptionsConfig } from "node:util";
 import { stringify } from "csv-stringify/sync";
 import { InputError } from "../lib/io/input_error.ts";
+import { csvHeader } from "../lib/analysis/csv_headers.ts";
 
 /** Exit codes of the machine contract. */
 export const EXIT = { ok: 0, usage: 1, someFailed: 2 } as const;
@@ -15,18 +15,6 @@ export class UsageError extends Error {
   constructor(message: string) {
     super(message);
     this.name = "UsageError";
-  }
-}
-
-/** Parses arguments, turning unknown options into a {@linkcode UsageError}. */
-export function parseCommandArgs<const T extends ParseArgsOptionsConfig>(
-  args: string[],
-  options: T,
-) {
-  try {
-    return parseArgs({ args, options, allowPositionals: true, strict: true });
-  } catch (e) {
-    throw new UsageError((e as Error).message);
   }
 }
 
@@ -53,8 +41,42 @@ export function log(message: string): void {
 
 /** Reports a failed input on stderr in the `file:line: problem` form. */
 export function reportFailure(error: unknown, file: string): void {
-  if (error instanceof InputError) log(`crystint: ${error.message}`);
-  else log(`crystint: ${file}: ${(error as Error).message ?? String(error)}`);
+  if (error instanceof InputError) log(`crystint: ${withFlagHint(error)}`);
+  else log(`crystint: ${file}: ${withFlagHint(error)}`);
+}
+
+/** Flag wording for the machine hints library errors carry in `need`. */
+const FLAG_HINTS: Record<string, string> = {
+  thickness: "--thickness MM",
+  path: "--path MM",
+  host: "--host NAME, --n VALUE or --sellmeier COEFFS",
+  n: "--n VALUE",
+  index: "--host NAME, --n VALUE or --sellmeier COEFFS",
+  ordinate: "--ordinate KIND",
+  axis: "--axis UNIT",
+  alphaBase: "--alpha-base e|10",
+  illuminant: "--illuminant NAME",
+  observer: "--observer 2|10",
+  calibration: "--calibration CAL.json",
+  length: "--length MM",
+  polarisation: "--force-order",
+};
+
+/**
+ * The option that supplies what a library error says is missing: `flagHint("thickness")` is
+ * `"--thickness MM"`; an unknown hint becomes `--<hint>`.
+ */
+export function flagHint(need: string): string {
+  return FLAG_HINTS[need] ?? `--${need.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`)}`;
+}
+
+/** An error's message, with the flag to give when the error carries a `need` hint. */
+export function withFlagHint(error: unknown): string {
+  const message = (error as Error)?.message ?? String(error);
+  const need = (error as { need?: unknown })?.need;
+  if (typeof need !== "string" || need === "") return message;
+  const flag = flagHint(need);
+  return message.includes(flag.split(/[ ,]/)[0]!) ? message : `${message} (give ${flag})`;
 }
 
 /** Rounds for display or CSV without losing what the measurement supports. */
@@ -64,17 +86,45 @@ export function round(value: unknown, digits: number): unknown {
     : value;
 }
 
-/** Rows as CSV text with a header row. */
-export function toCsv(rows: Record<string, unknown>[], columns: string[]): string {
-  return stringify(rows.map((r) => columns.map((c) => r[c] ?? "")), { header: true, columns });
+/** A cell as CSV writes it: booleans `true`/`false`, missing values blank, objects as JSON. */
+function csvCell(value: unknown): unknown {
+  if (value === undefined || value === null) return "";
+  if (typeof value === "boolean") return value ? "true" : "false";
+  if (typeof value === "object") return JSON.stringify(value);
+  return value;
 }
 
-/** Rows as an aligned plain-text table for a terminal. */
+/** Rows as CSV text, with the readable header of each key (lib/analysis/csv_headers.ts). */
+export function toCsv(rows: Record<string, unknown>[], keys: string[]): string {
+  return stringify(rows.map((r) => keys.map((k) => csvCell(r[k]))), {
+    header: true,
+    columns: keys.map(csvHeader),
+  });
+}
+
+/** Output format chosen by `--json` / `--csv`, or the terminal table. */
+export type OutputFormat = "json" | "csv" | "table";
+
+/** The output format from the two flags (giving both is a usage error). */
+export function outputFormat(json: boolean, csv: boolean): OutputFormat {
+  if (json && csv) throw new UsageError("Give only one of --json and --csv");
+  return json ? "json" : csv ? "csv" : "table";
+}
+
+/** Writes text to stdout without a trailing newline being added. */
+export function writeStdout(text: string): void {
+  const bytes = new TextEncoder().encode(text);
+  let written = 0;
+  while (written < bytes.length) written += Deno.stdout.writeSync(bytes.subarray(written));
+}
+
+/** Rows as an aligned plain-text table for a terminal, headed as in CSV. */
 export function toTable(rows: Record<string, unknown>[], columns: string[]): string {
   const cells = rows.map((r) => columns.map((c) => String(r[c] ?? "")));
-  const widths = columns.map((c, i) => Math.max(c.length, ...cells.map((row) => row[i]!.length)));
+  const heads = columns.map(csvHeader);
+  const widths = heads.map((c, i) => Math.max(c.length, ...cells.map((row) => row[i]!.length)));
   const fmt = (row: string[]) =>
     row.map((v, i) => (/^-?[\d.]+$/.test(v) ? v.padStart(widths[i]!) : v.padEnd(widths[i]!)))
       .join("  ").trimEnd();
-  return [fmt(columns), fmt(widths.map((w) => "─".repeat(w))), ...cells.map(fmt)].join("\n");
+  return [fmt(heads), fmt(widths.map((w) => "─".repeat(w))), ...cells.map(fmt)].join("\n");
 }

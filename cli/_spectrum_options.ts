@@ -4,99 +4,101 @@
  *
  * @module
  */
-import { axisFromText, ordinateFromText } from "../lib/io/header_units.ts";
+import { axisFromText, ordinateFromText, type OrdinateKind } from "../lib/io/header_units.ts";
+import type { AxisUnit } from "../lib/spectrum/axis.ts";
 import type { ReadOptions } from "../lib/io/read_spectra.ts";
 import { readSpectrumFile } from "../lib/io/read_file.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
-import { getHost, parseSellmeier } from "../lib/optics/refractive_index.ts";
+import { getHost, hostIndex, parseSellmeier } from "../lib/optics/refractive_index.ts";
+import { fresnelReflectance } from "../lib/optics/slab.ts";
 import type { ReflectionSettings } from "../lib/optics/path_transmittance.ts";
 import { customIlluminant, getIlluminant, type Illuminant } from "../lib/cie/illuminants.ts";
 import { getObserver } from "../lib/cie/observers.ts";
 import { log, positiveNumber, reportFailure, UsageError } from "./_shared.ts";
+import type { ParsedArgs } from "./_command.ts";
 
-/** parseArgs definitions of the shared options. */
-export const SPECTRUM_OPTIONS = {
-  ordinate: { type: "string" },
-  axis: { type: "string" },
-  thickness: { type: "string" },
-  path: { type: "string" },
-  reflection: { type: "string" },
-  host: { type: "string" },
-  n: { type: "string" },
-  sellmeier: { type: "string" },
-  json: { type: "boolean" },
-  csv: { type: "boolean" },
-  help: { type: "boolean", short: "h" },
-} as const;
+/** Logarithm base of α values. */
+export type AlphaBase = "e" | "10";
 
-/** Help text for the shared options. */
-export const SPECTRUM_OPTIONS_HELP =
-  `  --ordinate KIND     what the values are: transmittance | percent | absorbance | alpha
-                      (default: read from the header or preamble)
-  --axis UNIT         x axis unit: nm | um | cm-1 | ev (default: read from the header)
-  --thickness MM      thickness of the measured slab, mm (overrides the file's metadata)
-  --path MM           path length to compute for, mm
-  --reflection MODE   none (Beer–Lambert on the measured absorbance, default) or host
-                      (remove and restore the two Fresnel surfaces using n(λ))
-  --host NAME         host crystal for n(λ): corundum (default with --reflection host), yag,
-                      spinel, chrysoberyl, quartz, beryl
-  --n VALUE           constant refractive index instead of a host
-  --sellmeier COEFFS  your own Sellmeier fit: B1,B2,B3:C1,C2,C3 (C in µm) or A;B…:C… (C in µm²)
-  --json | --csv      machine-readable output on stdout`;
+/** The `--ordinate` choice, checked. */
+export function ordinateFrom(args: ParsedArgs): OrdinateKind | undefined {
+  const text = args.string("ordinate");
+  if (text === undefined) return undefined;
+  const kind = ordinateFromText(text);
+  if (!kind) {
+    throw new UsageError(
+      `Unknown --ordinate "${text}": use transmittance, percent, absorbance or alpha`,
+    );
+  }
+  return kind;
+}
 
-interface SharedValues {
-  ordinate?: string | undefined;
-  axis?: string | undefined;
-  thickness?: string | undefined;
-  path?: string | undefined;
-  reflection?: string | undefined;
-  host?: string | undefined;
-  n?: string | undefined;
-  sellmeier?: string | undefined;
+/** The `--axis` choice, checked. */
+export function axisFrom(args: ParsedArgs): AxisUnit | undefined {
+  const text = args.string("axis");
+  if (text === undefined) return undefined;
+  const axis = axisFromText(text);
+  if (!axis) throw new UsageError(`Unknown --axis "${text}": use nm, um, cm-1 or ev`);
+  return axis;
 }
 
 /** Reading options from the shared flags. */
-export function readOptionsFrom(values: SharedValues): ReadOptions {
+export function readOptionsFrom(args: ParsedArgs): ReadOptions {
   const options: ReadOptions = {};
-  if (values.ordinate !== undefined) {
-    const kind = ordinateFromText(values.ordinate);
-    if (!kind) {
-      throw new UsageError(
-        `Unknown --ordinate "${values.ordinate}": use transmittance, percent, absorbance or alpha`,
-      );
-    }
-    options.ordinate = kind;
-  }
-  if (values.axis !== undefined) {
-    const axis = axisFromText(values.axis);
-    if (!axis) throw new UsageError(`Unknown --axis "${values.axis}": use nm, um, cm-1 or ev`);
-    options.axis = axis;
-  }
-  const thickness = positiveNumber(values.thickness, "thickness");
+  const ordinate = ordinateFrom(args), axis = axisFrom(args);
+  if (ordinate !== undefined) options.ordinate = ordinate;
+  if (axis !== undefined) options.axis = axis;
+  const thickness = positiveNumber(args.string("thickness"), "thickness");
   if (thickness !== undefined) options.thicknessMm = thickness;
   return options;
 }
 
-/** Reflection settings from the shared flags. */
-export function reflectionFrom(values: SharedValues): ReflectionSettings {
-  const mode = values.reflection ??
-    (values.host !== undefined || values.n !== undefined ? "host" : "none");
+/** The `--alpha-base` choice (default e). */
+export function alphaBaseFrom(args: ParsedArgs): AlphaBase {
+  const base = (args.string("alpha-base") ?? "e").trim().toLowerCase();
+  if (base === "e" || base === "ln" || base === "natural") return "e";
+  if (base === "10" || base === "decadic" || base === "log10") return "10";
+  throw new UsageError(`Unknown --alpha-base "${base}": use e (natural) or 10 (decadic)`);
+}
+
+/**
+ * An α spectrum in the natural-log convention the library uses: decadic α (A = α·d) times
+ * ln 10 is natural α (T = exp(−α·d)). Other quantities are returned as they are.
+ */
+export function naturalAlpha(spectrum: Spectrum, base: AlphaBase): Spectrum {
+  if (base === "e" || spectrum.quantity !== "alpha") return spectrum;
+  return { ...spectrum, values: spectrum.values.map((v) => v * Math.LN10) };
+}
+
+/** Reads one file with the shared flags: reading options, then α converted to base e. */
+export async function readWithOptions(file: string, args: ParsedArgs): Promise<Spectrum[]> {
+  const base = alphaBaseFrom(args);
+  const spectra = await readSpectrumFile(file, readOptionsFrom(args));
+  return spectra.map((s) => naturalAlpha(s, base));
+}
+
+/** Reflection settings from the shared flags (`host` by default once a host or index is given). */
+export function reflectionFrom(args: ParsedArgs): ReflectionSettings {
+  const hostName = args.string("host"), nText = args.string("n");
+  const sellmeier = args.string("sellmeier");
+  const mode = args.string("reflection") ??
+    (hostName !== undefined || nText !== undefined || sellmeier !== undefined ? "host" : "none");
   if (mode !== "none" && mode !== "host") {
     throw new UsageError(`Unknown --reflection "${mode}": use none or host`);
   }
   const settings: ReflectionSettings = { reflection: mode };
-  if (values.host !== undefined) {
+  if (hostName !== undefined) {
     try {
-      settings.host = getHost(values.host);
+      settings.host = getHost(hostName);
     } catch (e) {
       throw new UsageError((e as Error).message);
     }
   }
-  const n = positiveNumber(values.n, "n");
+  const n = positiveNumber(nText, "n");
   if (n !== undefined) settings.n = n;
-  if (values.sellmeier !== undefined) {
+  if (sellmeier !== undefined) {
     try {
-      settings.dispersion = parseSellmeier(values.sellmeier);
+      settings.dispersion = parseSellmeier(sellmeier);
     } catch (e) {
       throw new UsageError((e as Error).message);
     }
@@ -112,6 +114,49 @@ export function reflectionFrom(values: SharedValues): ReflectionSettings {
     );
   }
   return settings;
+}
+
+/** Wavelength at which the surface-loss note quotes R (the sodium D line, as indices are quoted). */
+const NOTE_NM = 589;
+
+/**
+ * A function that says once on stderr, the first time a measured slab (T, %T or A) is rescaled
+ * to another path with `--reflection none`, that its surface losses are scaled with the path,
+ * and by how much: Beer–Lambert on the measured absorbance raises the two-surface factor
+ * (1 − R)² to the power path/thickness, so T at the new path is off by (1 − R)^(2(p/d − 1)),
+ * R = ((n − 1)/(n + 1))² at normal incidence (Fresnel).
+ */
+export function surfaceLossNote(
+  reflection: ReflectionSettings,
+  args: ParsedArgs,
+): (spectrum: Spectrum, pathMm: number | undefined) => void {
+  let said = false;
+  return (spectrum, pathMm) => {
+    if (said || reflection.reflection !== "none" || spectrum.quantity === "alpha") return;
+    const d = spectrum.thicknessMm;
+    if (pathMm === undefined || d === undefined || !(d > 0) || Math.abs(pathMm - d) < 1e-9) return;
+    said = true;
+    const hostName = args.string("host");
+    const nGiven = positiveNumber(args.string("n"), "n");
+    let n: number, what: string;
+    if (nGiven !== undefined) [n, what] = [nGiven, `n = ${nGiven}`];
+    else {
+      const host = getHost(hostName ?? "corundum");
+      n = hostIndex(host, NOTE_NM).n;
+      what = `${hostName === undefined ? "e.g. " : ""}${host.name}, n = ${
+        n.toFixed(3)
+      } at ${NOTE_NM} nm`;
+    }
+    const r = fresnelReflectance(n);
+    const pair = (1 - r) ** 2;
+    const off = pair ** (pathMm / d - 1);
+    log(
+      `crystint: --reflection none rescales the measured slab (${d} mm → ${pathMm} mm) with its ` +
+        `surface losses: the two-surface factor (1−R)² = ${pair.toFixed(3)} (${what}) is raised ` +
+        `to the power path/thickness, so T comes out ×${off.toFixed(3)} of the slab-with-two-` +
+        `surfaces value; give --reflection host --host NAME to remove and restore the surfaces`,
+    );
+  };
 }
 
 /** Resolves illuminant names or SPD files. */
@@ -149,18 +194,21 @@ export function checkObservers(names: string[]): string[] {
 }
 
 /**
- * Reads each file, hands its spectra to `each`, reports failures; returns the failure count.
- * One bad file never stops the others.
+ * Reads each file with the shared flags, hands its spectra to `each`, reports failures (with
+ * flag wording for what a library error says is missing); returns the failure count. One bad
+ * file never stops the others.
  */
 export async function forEachFile(
   files: string[],
-  options: ReadOptions,
+  args: ParsedArgs,
   each: (spectra: Spectrum[], file: string) => void,
 ): Promise<number> {
+  const options = readOptionsFrom(args);
+  const base = alphaBaseFrom(args);
   let failed = 0;
   for (const file of files) {
     try {
-      const spectra = await readSpectrumFile(file, options);
+      const spectra = (await readSpectrumFile(file, options)).map((s) => naturalAlpha(s, base));
       for (const s of spectra) {
         for (const w of s.meta.warnings ?? []) log(`crystint: ${file}: ${s.meta.sample}: ${w}`);
       }

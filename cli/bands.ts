@@ -13,52 +13,104 @@ import {
 import { getHost, hostIndex } from "../lib/optics/refractive_index.ts";
 import { densityFromBand } from "../lib/dopant/smakula_dexter.ts";
 import { figureOfMerit } from "../lib/bands/figure_of_merit.ts";
+import type { CommandSpec, ParsedArgs } from "./_command.ts";
 import {
   EXIT,
-  parseCommandArgs,
+  outputFormat,
   positiveNumber,
   round,
   toCsv,
   toTable,
   UsageError,
+  writeStdout,
 } from "./_shared.ts";
-import { forEachFile, readOptionsFrom } from "./_spectrum_options.ts";
+import { ALPHA_NOTE, OUTPUT_OPTIONS, READING_OPTIONS } from "./_options.ts";
+import { forEachFile } from "./_spectrum_options.ts";
 
-export const BANDS_HELP = `crystint bands — absorption bands fitted in wavenumber
-
-Usage:
-  crystint bands FILE… [--host NAME] [--range-nm FROM-TO] [--json|--csv] [options]
-
-Options:
-  --host NAME         host for the assignment hints (corundum, spinel, yag, chrysoberyl, beryl)
-  --range-nm A-B      fit only this wavelength range, e.g. 330-900
-  --floor-t T         transmittance (fraction) below which readings are left out
-                      (default: 10× the noise of the transmittance reading, from the data)
-  --max-absorbance A  the instrument's absorbance limit; readings above are left out
-  --resolution-nm NM  instrument resolution (FWHM); no band is fitted narrower
-                      (default: two grid steps)
-  --ordinate KIND     transmittance | percent | absorbance | alpha (default: from the file)
-  --axis UNIT         nm | um | cm-1 | ev (default: from the file)
-  --thickness MM      measured thickness, mm: bands are then also given as α (natural, cm⁻¹)
-  --oscillator-strength F   add a Smakula–Dexter density estimate N per band (cm⁻³) for the
-                      oscillator strength F you supply (needs α: an α file or --thickness, and
-                      --host or --n for the index); an order-of-magnitude estimate
-  --n VALUE           refractive index for the estimate when no host is named
-  --merit PUMP,RES    figure of merit α(PUMP nm)/α(RES nm), e.g. 490,820 for Ti:sapphire
-                      (common practice)
-  --edge direct|indirect   Tauc gap and Urbach energy of the absorption edge
-  --json | --csv      machine-readable output on stdout
-  -h, --help          show this help
-
-Bands are Gaussian in energy (Lorentzian for lines narrower than 150 cm⁻¹), fitted on the
-usable range with a baseline b0 + b1·ν̃ + scatter·ν̃⁴ (plus an Urbach-type edge term where the
-absorption edge reaches in) by variable projection, weighted by the photometric noise; the
-number of bands is chosen by BIC where the residual shows structure. ± are 1σ standard
-errors; a width held at a bound has none. Assignments are hints.
-
-Example:
-  crystint bands slabs/TCW-R03.csv --host corundum --range-nm 330-900 --json
-`;
+/** The command table of `crystint bands`. */
+export const BANDS_COMMAND: CommandSpec = {
+  name: "bands",
+  summary: "detect and fit absorption bands in wavenumber, with assignment hints",
+  usage: ["FILE… [--host NAME] [--range-nm FROM-TO] [--json|--csv] [options]"],
+  positionals: "FILE… spectrum exports (absorbance, transmittance or α).",
+  options: [
+    {
+      name: "host",
+      type: "string",
+      arg: "NAME",
+      help: "host for the assignment hints (corundum, spinel, yag, chrysoberyl, beryl)",
+    },
+    {
+      name: "range-nm",
+      type: "string",
+      arg: "A-B",
+      help: "fit only this wavelength range, e.g. 330-900",
+    },
+    {
+      name: "floor-t",
+      type: "string",
+      arg: "T",
+      help: "transmittance (fraction) below which readings are left out as carrying no information",
+      default: "10× the noise of the transmittance reading, estimated from the data",
+    },
+    {
+      name: "max-absorbance",
+      type: "string",
+      arg: "A",
+      help: "the instrument's absorbance limit; readings above it are left out",
+    },
+    {
+      name: "resolution-nm",
+      type: "string",
+      arg: "NM",
+      help: "instrument resolution (FWHM); no band is fitted narrower",
+      default: "two grid steps",
+    },
+    ...READING_OPTIONS,
+    {
+      name: "oscillator-strength",
+      type: "string",
+      arg: "F",
+      help: "add a Smakula–Dexter density estimate N per band (cm⁻³) for the oscillator " +
+        "strength F you supply (needs α: an α file or --thickness, and --host or --n for the " +
+        "index); an order-of-magnitude estimate",
+    },
+    {
+      name: "n",
+      type: "string",
+      arg: "VALUE",
+      help: "refractive index for the estimate when no host is named",
+    },
+    {
+      name: "merit",
+      type: "string",
+      arg: "PUMP,RES",
+      help: "figure of merit α(PUMP nm)/α(RES nm), e.g. 490,820 for Ti:sapphire (common practice)",
+    },
+    {
+      name: "edge",
+      type: "string",
+      arg: "direct|indirect",
+      help: "Tauc gap and Urbach energy of the absorption edge (from A·ln 10 when no thickness " +
+        "is known: neither depends on the scale)",
+    },
+    ...OUTPUT_OPTIONS,
+  ],
+  notes: [
+    "Bands are Gaussian in energy (Lorentzian for lines narrower than 150 cm⁻¹), fitted on the " +
+    "usable range (stretches below the photometric floor, above the absorbance limit or clipped " +
+    "are left out and listed) with a baseline b0 + b1·ν̃ + scatter·ν̃⁴, plus an Urbach-type edge " +
+    "term where the absorption edge reaches in, by variable projection weighted by the " +
+    "photometric noise; where the residual shows structure a band is added or split and kept " +
+    "when BIC prefers it. ± are 1σ standard errors; a width held at a bound has none (held). " +
+    "The fitted ordinate is decadic absorbance as measured, or α for α files; with a thickness " +
+    "the bands are also given as α (natural, cm⁻¹). Assignments are hints. --csv gives one row " +
+    "per band.",
+    ALPHA_NOTE,
+  ],
+  examples: ["slabs/TCW-R03.csv --host corundum --range-nm 330-900 --json"],
+  run: bandsCommand,
+};
 
 /** One printed result: the analysis plus file and the optional estimates. */
 type BandsRow = Omit<BandAnalysis, "curve"> & {
@@ -89,28 +141,20 @@ function plusMinus(value: number, sigma: number | null, digits: number): string 
 }
 
 /** Runs the command; returns the exit code. */
-export async function bandsCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
-    ordinate: { type: "string" },
-    axis: { type: "string" },
-    thickness: { type: "string" },
-    host: { type: "string" },
-    "range-nm": { type: "string" },
-    "floor-t": { type: "string" },
-    "max-absorbance": { type: "string" },
-    "resolution-nm": { type: "string" },
-    "oscillator-strength": { type: "string" },
-    n: { type: "string" },
-    merit: { type: "string" },
-    edge: { type: "string" },
-    json: { type: "boolean" },
-    csv: { type: "boolean" },
-    help: { type: "boolean", short: "h" },
-  });
-  if (values.help) {
-    console.log(BANDS_HELP);
-    return EXIT.ok;
-  }
+async function bandsCommand(args: ParsedArgs): Promise<number> {
+  const positionals = args.positionals;
+  const values = {
+    host: args.string("host"),
+    "range-nm": args.string("range-nm"),
+    "floor-t": args.string("floor-t"),
+    "max-absorbance": args.string("max-absorbance"),
+    "resolution-nm": args.string("resolution-nm"),
+    "oscillator-strength": args.string("oscillator-strength"),
+    n: args.string("n"),
+    merit: args.string("merit"),
+    edge: args.string("edge"),
+  };
+  const format = outputFormat(args.flag("json"), args.flag("csv"));
   if (positionals.length === 0) {
     throw new UsageError("No input files: give one or more spectrum files");
   }
@@ -153,7 +197,7 @@ export async function bandsCommand(args: string[]): Promise<number> {
     options.tauc = values.edge;
   }
   const results: BandsRow[] = [];
-  const failed = await forEachFile(positionals, readOptionsFrom(values), (spectra, file) => {
+  const failed = await forEachFile(positionals, args, (spectra, file) => {
     for (const s of spectra) {
       const { curve: _curve, ...analysis } = analyseBands(s, options);
       const row: BandsRow = { ...analysis, file };
@@ -189,7 +233,7 @@ export async function bandsCommand(args: string[]): Promise<number> {
           "",
     }))
   );
-  if (values.json) {
+  if (format === "json") {
     // the JSON contract puts sample and file first
     console.log(
       JSON.stringify(
@@ -198,7 +242,7 @@ export async function bandsCommand(args: string[]): Promise<number> {
         2,
       ),
     );
-  } else if (values.csv) {
+  } else if (format === "csv") {
     const cols = [
       "sample",
       "file",
@@ -214,10 +258,9 @@ export async function bandsCommand(args: string[]): Promise<number> {
       "heightSigma",
       "area",
       "areaSigma",
-      "held",
       "assignment",
     ];
-    Deno.stdout.writeSync(new TextEncoder().encode(toCsv(rows, cols)));
+    writeStdout(toCsv(rows, cols));
   } else {
     const shown = rows.map((r) => ({
       sample: r.sample,

@@ -6,54 +6,149 @@
 import cliProgress from "cli-progress";
 import process from "node:process";
 import { runBatch } from "../lib/batch/run_batch.ts";
-import { SettingsError } from "../lib/batch/settings.ts";
-import { EXIT, log, parseCommandArgs, positiveNumber, UsageError } from "./_shared.ts";
+import { planInputs } from "../lib/batch/plan_inputs.ts";
+import {
+  type BatchSettings,
+  defaultSettings,
+  readSettingsFile,
+  SettingsError,
+} from "../lib/batch/mod.ts";
+import type { CommandSpec, ParsedArgs } from "./_command.ts";
+import { EXIT, log, positiveNumber, UsageError } from "./_shared.ts";
+import { OBSERVER_NOTE, READING_OPTIONS } from "./_options.ts";
+import { alphaBaseFrom, axisFrom, ordinateFrom } from "./_spectrum_options.ts";
 
-export const BATCH_HELP = `crystint batch — process a whole set of exports and write a report
+/** Every key a settings file may hold, with what it sets. */
+export const SETTINGS_KEYS: [string, string][] = [
+  ["illuminants", "illuminants of the colour rows (list)"],
+  ["observers", "observers of the colour rows: 2 and/or 10 (list)"],
+  ["change", "{from, to, observer, adapt}: the colour change reported per sample"],
+  ["pathMm", "path length of the finished stone, mm (a sheet column overrides it)"],
+  ["thicknessMm", "measured thickness when neither file nor sheet says, mm"],
+  ["reflection", "none or host (surface treatment when rescaling the path)"],
+  ["host", "host crystal for n(λ)"],
+  ["n", "constant refractive index"],
+  ["sellmeier", "your own Sellmeier coefficients, as for --sellmeier"],
+  ["ordinate", "what the values are, for files that do not say (as --ordinate)"],
+  ["axis", "x axis unit, for files that do not say (as --axis)"],
+  [
+    "target",
+    "target colour every sample is checked against: L,a,b or {L, a, b, illuminant, " +
+    "observer, toleranceDE00, under, spectrum, spectrumPathMm}",
+  ],
+  ["targets", "named targets the sheet's target column may refer to"],
+  ["series", "{fromMm, toMm, steps, targetL}: thickness series range"],
+  [
+    "changeHueThresholdDeg",
+    "hue difference from which a change is called marked (common practice)",
+  ],
+  ["changeMinChroma", "smallest C*ab for a change to be called marked (common practice)"],
+  ["calibration", "calibration file applied to every sample"],
+  ["calibrations", "named calibration files the sheet's calibration column may refer to"],
+];
 
-Usage:
-  crystint batch INPUT… --out DIR [--manifest SAMPLES.csv] [--settings FILE] [--quiet]
+/** The command table of `crystint batch`. */
+export const BATCH_COMMAND: CommandSpec = {
+  name: "batch",
+  summary: "process folders of exports into results.csv, results.json and an HTML report",
+  usage: ["INPUT… --out DIR [--manifest SAMPLES.csv] [--settings FILE] [--quiet]"],
+  positionals: 'INPUT… files, folders (searched recursively) or glob patterns ("lot/**/*.csv").',
+  options: [
+    {
+      name: "out",
+      type: "string",
+      arg: "DIR",
+      help: "output folder: results.csv, results.json, index.html (required)",
+    },
+    {
+      name: "manifest",
+      type: "string",
+      arg: "FILE",
+      help: "sample sheet (CSV): sample, file, thickness_mm, path_mm, host, polarisation, " +
+        "target, calibration, notes; other columns are carried along",
+    },
+    {
+      name: "settings",
+      type: "string",
+      arg: "FILE",
+      help: "settings in JSON or YAML on top of the defaults (keys below)",
+    },
+    ...READING_OPTIONS.filter((o) => o.name !== "thickness").map((o) => ({
+      ...o,
+      help: `${o.help}; for files that do not say (overrides the setting)`,
+    })),
+    {
+      name: "workers",
+      type: "string",
+      arg: "N",
+      help: "number of worker threads",
+      default: "one per core, at most 8",
+    },
+    { name: "quiet", type: "boolean", help: "no progress output" },
+  ],
+  notes: [
+    "Settings keys: " + SETTINGS_KEYS.map(([k, what]) => `${k} — ${what}`).join("; ") + ".",
+    "Defaults: " + JSON.stringify(defaultSettings()) + ".",
+    "Results are cached per input (content hash + settings hash) in DIR/.cache, so a rerun " +
+    "after a crash or after adding files only computes what is new. Outputs are written " +
+    "atomically. When no input matches a file, nothing is written and the exit code is 1.",
+    OBSERVER_NOTE,
+    "Exit codes: 0 all inputs done, 1 usage or settings error, 2 some inputs failed.",
+  ],
+  examples: [
+    "spectra/demo --manifest spectra/demo/manifest.csv --out reports/demo",
+    "'lot/*.dat' --ordinate transmittance --axis nm --out reports/lot",
+  ],
+  run: batchCommand,
+};
 
-INPUT may be files, folders (searched recursively) or glob patterns ("lot/**/*.csv").
-
-Options:
-  --out DIR           output folder: results.csv, results.json, index.html (required)
-  --manifest FILE     sample sheet (CSV): sample, file, thickness_mm, path_mm, host,
-                      polarisation, target, calibration, notes; other columns are carried along
-  --settings FILE     defaults in JSON or YAML (illuminants, observers, pathMm, reflection,
-                      host, target, targets, change, series)
-  --workers N         number of worker threads (default: one per core, at most 8)
-  --quiet             no progress output
-  -h, --help          show this help
-
-Results are cached per input (content hash + settings hash) in DIR/.cache, so a rerun after a
-crash or after adding files only computes what is new. Outputs are written atomically.
-Exit codes: 0 all inputs done, 1 usage or settings error, 2 some inputs failed.
-
-Example:
-  crystint batch spectra/demo --manifest spectra/demo/manifest.csv --out reports/demo
-`;
+/** The settings the run uses: the file's (or the defaults) with the reading options on top. */
+async function settingsFor(args: ParsedArgs): Promise<BatchSettings | undefined> {
+  const ordinate = args.string("ordinate"), axis = args.string("axis");
+  if (alphaBaseFrom(args) === "10") {
+    throw new UsageError(
+      "batch reads α as natural-log based (T = exp(−α·d)) and cannot yet convert decadic α: " +
+        "convert the files with another crystint command or give --alpha-base e",
+    );
+  }
+  if (ordinate === undefined && axis === undefined) return undefined;
+  // the same checks as every other command
+  ordinateFrom(args);
+  axisFrom(args);
+  const path = args.string("settings");
+  const settings = path ? await readSettingsFile(path) : defaultSettings();
+  if (ordinate !== undefined) settings.ordinate = ordinate;
+  if (axis !== undefined) settings.axis = axis;
+  return settings;
+}
 
 /** Runs the command; returns the exit code. */
-export async function batchCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
-    out: { type: "string" },
-    manifest: { type: "string" },
-    settings: { type: "string" },
-    workers: { type: "string" },
-    quiet: { type: "boolean" },
-    help: { type: "boolean", short: "h" },
-  });
-  if (values.help) {
-    console.log(BATCH_HELP);
-    return EXIT.ok;
-  }
+async function batchCommand(args: ParsedArgs): Promise<number> {
+  const positionals = args.positionals;
+  const values = {
+    out: args.string("out"),
+    manifest: args.string("manifest"),
+    settings: args.string("settings"),
+  };
   if (positionals.length === 0) {
     throw new UsageError("No inputs: give files, folders or glob patterns");
   }
   if (!values.out) throw new UsageError("Option --out DIR is required");
-  const workers = positiveNumber(values.workers, "workers");
-  const quiet = values.quiet ?? false;
+  const workers = positiveNumber(args.string("workers"), "workers");
+  const quiet = args.flag("quiet");
+  let settings: BatchSettings | undefined;
+  try {
+    settings = await settingsFor(args);
+  } catch (e) {
+    if (e instanceof SettingsError) throw new UsageError(e.message);
+    throw e;
+  }
+  const skip = [values.out, values.manifest, values.settings].filter((p): p is string => !!p);
+  const plan = await planInputs(positionals, skip.map((p) => p.replace(/\/$/, "")));
+  if (plan.files.length === 0) {
+    log(`crystint batch: no files matched ${positionals.map((p) => `"${p}"`).join(", ")}`);
+    return EXIT.usage;
+  }
   const tty = Deno.stderr.isTerminal();
   let bar: cliProgress.SingleBar | undefined;
   let lastLine = 0;
@@ -86,7 +181,7 @@ export async function batchCommand(args: string[]): Promise<number> {
       inputs: positionals,
       outDir: values.out,
       ...(values.manifest ? { manifestPath: values.manifest } : {}),
-      ...(values.settings ? { settingsPath: values.settings } : {}),
+      ...(settings ? { settings } : values.settings ? { settingsPath: values.settings } : {}),
       ...(workers ? { workers: Math.round(workers) } : {}),
       onProgress,
       log: quiet ? () => {} : log,

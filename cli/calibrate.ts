@@ -21,54 +21,105 @@ import { writeTextAtomic } from "../lib/batch/atomic_write.ts";
 import {
   EXIT,
   log,
-  parseCommandArgs,
+  outputFormat,
   positiveNumber,
   reportFailure,
   round,
+  toCsv,
   toTable,
   UsageError,
+  writeStdout,
 } from "./_shared.ts";
+import type { CommandSpec, ParsedArgs } from "./_command.ts";
+import { ALPHA_NOTE, OUTPUT_OPTIONS, READING_OPTIONS } from "./_options.ts";
+import { alphaBaseFrom, naturalAlpha, readOptionsFrom } from "./_spectrum_options.ts";
 
-export const CALIBRATE_HELP = `crystint calibrate — calibration line from analysed standards
+/** The command table of `crystint calibrate`. */
+export const CALIBRATE_COMMAND: CommandSpec = {
+  name: "calibrate",
+  summary: "straight-line calibration of a band response against analysed standards",
+  usage: [
+    "STANDARDS.csv [--metric band-area|band-height|alpha-at] [--mode ols|origin|weighted] " +
+    "[--band-nm 555] [--at-nm 555] [--window-nm 720-760] [--out CAL.json] [--json|--csv]",
+  ],
+  positionals: 'STANDARDS.csv columns: sample, concentration (unit in a "unit" column or the ' +
+    'header, e.g. "Cr2O3 (wt%)"), optional concentration_sigma, and either file (a spectrum, ' +
+    "path relative to the table; thickness from the file or a thickness_mm column) or response " +
+    "(+ response_sigma). A response column is used directly.",
+  options: [
+    {
+      name: "metric",
+      type: "string",
+      arg: "METRIC",
+      help: "band-area, band-height (fitted band nearest --band-nm), or alpha-at (α at --at-nm " +
+        "above the mean α in --window-nm); all in natural α units (cm⁻¹)",
+      default: "band-area",
+    },
+    {
+      name: "mode",
+      type: "string",
+      arg: "MODE",
+      help: "ols with intercept, origin (through zero, Beer–Lambert), weighted (1/σ², effective " +
+        "variance when concentrations carry uncertainties)",
+      default: "ols",
+    },
+    { name: "band-nm", type: "string", arg: "NM", help: "band position for band-height" },
+    { name: "at-nm", type: "string", arg: "NM", help: "wavelength for alpha-at" },
+    {
+      name: "window-nm",
+      type: "string",
+      arg: "FROM-TO",
+      help: "reference window for alpha-at",
+    },
+    {
+      name: "out",
+      type: "string",
+      arg: "CAL.json",
+      help: 'save the calibration (JSON, with its α base) for "crystint predict" and batch runs',
+    },
+    ...READING_OPTIONS,
+    ...OUTPUT_OPTIONS,
+  ],
+  notes: [
+    "Prints slope, intercept, slopeSigma, interceptSigma, r2, lod, loq (LOD = 3·s_y/x / slope, " +
+    "LOQ = 10·s_y/x / slope), residuals and the 95 % t factor. --csv prints one row: metric, " +
+    "mode, unit, alphaBase, slope, intercept, slopeSigma, interceptSigma, r2, syx, lod, loq, n.",
+    ALPHA_NOTE,
+  ],
+  examples: ["standards/cr.csv --metric band-area --band-nm 555 --out cr-cal.json"],
+  run: calibrateCommand,
+};
 
-Usage:
-  crystint calibrate STANDARDS.csv [--metric band-area|band-height|alpha-at] [--mode ols|origin|weighted]
-                     [--band-nm 555] [--at-nm 555] [--window-nm 720-760] [--out CAL.json] [--json]
-
-STANDARDS.csv columns: sample, concentration (unit in a "unit" column or the header, e.g.
-"Cr2O3 (wt%)"), optional concentration_sigma, and either file (a spectrum, path relative to
-the table; thickness from the file or a thickness_mm column) or response (+ response_sigma).
-A response column is used directly.
-
-  --metric      band-area (default), band-height (fitted band nearest --band-nm), or alpha-at
-                (α at --at-nm above the mean α in --window-nm); all in α units (cm⁻¹)
-  --mode        ols with intercept (default), origin (through zero, Beer–Lambert), weighted
-                (1/σ², effective variance when concentrations carry uncertainties)
-  --out FILE    save the calibration (JSON) for "crystint predict" and batch runs
-
-Prints slope, intercept, slopeSigma, interceptSigma, r2, lod, loq (LOD = 3·s_y/x / slope,
-LOQ = 10·s_y/x / slope), residuals and the 95 % t factor.
-
-Example:
-  crystint calibrate standards/cr.csv --metric band-area --band-nm 555 --out cr-cal.json
-`;
+const CSV_KEYS = [
+  "metric",
+  "mode",
+  "unit",
+  "alphaBase",
+  "slope",
+  "intercept",
+  "slopeSigma",
+  "interceptSigma",
+  "r2",
+  "syx",
+  "lod",
+  "loq",
+  "n",
+];
 
 /** Runs the command; returns the exit code. */
-export async function calibrateCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
-    metric: { type: "string" },
-    mode: { type: "string" },
-    "band-nm": { type: "string" },
-    "at-nm": { type: "string" },
-    "window-nm": { type: "string" },
-    out: { type: "string" },
-    json: { type: "boolean" },
-    help: { type: "boolean", short: "h" },
-  });
-  if (values.help) {
-    console.log(CALIBRATE_HELP);
-    return EXIT.ok;
-  }
+async function calibrateCommand(args: ParsedArgs): Promise<number> {
+  const positionals = args.positionals;
+  const values = {
+    metric: args.string("metric"),
+    mode: args.string("mode"),
+    "band-nm": args.string("band-nm"),
+    "at-nm": args.string("at-nm"),
+    "window-nm": args.string("window-nm"),
+    out: args.string("out"),
+  };
+  const format = outputFormat(args.flag("json"), args.flag("csv"));
+  const readOptions = readOptionsFrom(args);
+  const alphaBase = alphaBaseFrom(args);
   if (positionals.length !== 1) throw new UsageError("Give exactly one standards table");
   const metric = (values.metric ?? "band-area") as ResponseMetric;
   if (!["band-area", "band-height", "alpha-at"].includes(metric)) {
@@ -103,11 +154,11 @@ export async function calibrateCommand(args: string[]): Promise<number> {
       let y = row.response, sy = row.responseSigma;
       if (y === undefined) {
         const path = resolve(dirname(table), row.file!);
-        const [spectrum] = await readSpectrumFile(
-          path,
-          row.thicknessMm ? { thicknessMm: row.thicknessMm } : {},
-        );
-        const r = spectrumResponse(spectrum!, metric, options);
+        const [read] = await readSpectrumFile(path, {
+          ...readOptions,
+          ...(row.thicknessMm ? { thicknessMm: row.thicknessMm } : {}),
+        });
+        const r = spectrumResponse(naturalAlpha(read!, alphaBase), metric, options);
         y = r.value;
         sy = r.sigma;
       }
@@ -135,11 +186,13 @@ export async function calibrateCommand(args: string[]): Promise<number> {
   if (values.out) {
     await writeTextAtomic(
       values.out,
-      JSON.stringify({ kind: "crystint-calibration", ...cal }, null, 2) + "\n",
+      JSON.stringify({ kind: "crystint-calibration", alphaBase: "e", ...cal }, null, 2) + "\n",
     );
   }
-  if (values.json) console.log(JSON.stringify(cal, null, 2));
-  else {
+  if (format === "json") console.log(JSON.stringify(cal, null, 2));
+  else if (format === "csv") {
+    writeStdout(toCsv([{ ...cal, alphaBase: "e", n: points.length }], CSV_KEYS));
+  } else {
     const keys = [
       "slope",
       "intercept",

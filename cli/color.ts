@@ -4,50 +4,47 @@
  * @module
  */
 import { type ColourRow, spectrumColour } from "../lib/cie/spectrum_colour.ts";
+import type { CommandSpec } from "./_command.ts";
+import { MARKS } from "../lib/report/marks.ts";
 import {
   EXIT,
   listOption,
   log,
-  parseCommandArgs,
+  outputFormat,
   positiveNumber,
   round,
   toCsv,
   toTable,
   UsageError,
+  writeStdout,
 } from "./_shared.ts";
+import {
+  ALPHA_NOTE,
+  DEFAULT_OBSERVER,
+  illuminantOption,
+  OBSERVER_NOTE,
+  observerOption,
+  OPTICS_OPTIONS,
+  OUTPUT_OPTIONS,
+  READING_OPTIONS,
+} from "./_options.ts";
 import {
   checkObservers,
   forEachFile,
-  readOptionsFrom,
   reflectionFrom,
   resolveIlluminants,
-  SPECTRUM_OPTIONS,
-  SPECTRUM_OPTIONS_HELP,
+  surfaceLossNote,
 } from "./_spectrum_options.ts";
+import {
+  COLOR_UNCERTAINTY_COLUMNS,
+  normaliseUncertaintyArgs,
+  UNCERTAINTY_OPTIONS,
+  uncertaintyFromArgs,
+  withColorUncertainty,
+} from "./_uncertainty_options.ts";
 
-export const COLOR_HELP = `crystint color — CIE colour of measured spectra
-
-Usage:
-  crystint color FILE… [options]
-
-Options:
-${SPECTRUM_OPTIONS_HELP}
-  --illuminant LIST   comma list: A, C, D50, D55, D65, D75, E, F1…F12, LED-B1…LED-V2,
-                      D<cct>K, or an SPD
-                      file (default: D65,A)
-  --observer LIST     2 (CIE 1931) and/or 10 (CIE 1964) (default: 2)
-  -h, --help          show this help
-
-Each row: sample, file, illuminant, observer, pathMm, X, Y, Z, x, y, L, a, b, C, h
-(L*a*b* relative to the white of the illuminant used; h in degrees), then u′v′, dominant
-wavelength and purity, sRGB / Display P3 swatches with out-of-gamut flags.
-Exit codes: 0 all files done, 1 usage error, 2 some files failed.
-
-Example:
-  crystint color stones/ruby-03.csv --thickness 2 --path 6 --illuminant D65,A --json
-`;
-
-const COLUMNS = [
+/** The contract keys of a colour row (shared/DESIGN.md), in output order. */
+export const COLOR_KEYS = [
   "sample",
   "file",
   "illuminant",
@@ -64,7 +61,8 @@ const COLUMNS = [
   "C",
   "h",
 ];
-const EXTRA = [
+/** Further keys of a colour row, after the contract keys. */
+export const COLOR_EXTRA_KEYS = [
   "uPrime",
   "vPrime",
   "dominantNm",
@@ -78,61 +76,93 @@ const EXTRA = [
   "extrapolated",
 ];
 
-/** Runs the command; returns the exit code. */
-export async function colorCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
-    ...SPECTRUM_OPTIONS,
-    illuminant: { type: "string" },
-    observer: { type: "string" },
-  });
-  if (values.help) {
-    console.log(COLOR_HELP);
-    return EXIT.ok;
-  }
-  if (positionals.length === 0) {
-    throw new UsageError("No input files: give one or more spectrum files");
-  }
-  if (values.json && values.csv) throw new UsageError("Give only one of --json and --csv");
-  const readOptions = readOptionsFrom(values);
-  const reflection = reflectionFrom(values);
-  const pathMm = positiveNumber(values.path, "path");
-  const observers = checkObservers(listOption(values.observer, ["2"]));
-  const illuminants = await resolveIlluminants(listOption(values.illuminant, ["D65", "A"]));
-  const rows: ColourRow[] = [];
-  const failed = await forEachFile(positionals, readOptions, (spectra, file) => {
-    const fileRows = spectra.flatMap((s) =>
-      spectrumColour(s, {
+/** Uncertainty columns the terminal table shows. */
+const SHOWN_SD = ["LSd", "aSd", "bSd"];
+
+/** The command table of `crystint color`. */
+export const COLOR_COMMAND: CommandSpec = {
+  name: "color",
+  summary: "CIE colour (XYZ, xy, L*a*b*, LCh, swatches) of spectra under chosen illuminants",
+  usage: ["FILE… [options]"],
+  positionals: "FILE… spectrum exports (CSV/TSV/text tables or JCAMP-DX).",
+  options: [
+    ...READING_OPTIONS,
+    ...OPTICS_OPTIONS,
+    illuminantOption("D65,A"),
+    observerOption(),
+    ...UNCERTAINTY_OPTIONS,
+    ...OUTPUT_OPTIONS,
+  ],
+  prepareArgs: normaliseUncertaintyArgs,
+  notes: [
+    "Each row: sample, file, illuminant, observer, pathMm, X, Y, Z, x, y, L, a, b, C, h " +
+    "(L*a*b* relative to the white of the illuminant used; h in degrees), then u′v′, dominant " +
+    "wavelength and purity, sRGB / Display P3 swatches with out-of-gamut flags. With " +
+    "--uncertainty also LSd, aSd, bSd, CSd, hSd (standard uncertainties, k = 1) and, in --json, " +
+    "labCovariance (3×3) and the sources used.",
+    OBSERVER_NOTE,
+    ALPHA_NOTE,
+    "Exit codes: 0 all files done, 1 usage error, 2 some files failed.",
+  ],
+  examples: ["stones/ruby-03.csv --thickness 2 --path 6 --illuminant D65,A --json"],
+  async run(args) {
+    if (args.positionals.length === 0) {
+      throw new UsageError("No input files: give one or more spectrum files");
+    }
+    const format = outputFormat(args.flag("json"), args.flag("csv"));
+    const reflection = reflectionFrom(args);
+    const pathMm = positiveNumber(args.string("path"), "path");
+    const observers = checkObservers(listOption(args.string("observer"), [DEFAULT_OBSERVER]));
+    const illuminants = await resolveIlluminants(
+      listOption(args.string("illuminant"), ["D65", "A"]),
+    );
+    const note = surfaceLossNote(reflection, args);
+    const uncertainty = uncertaintyFromArgs(args);
+    const rows: ColourRow[] = [];
+    const failed = await forEachFile(args.positionals, args, (spectra, file) => {
+      for (const s of spectra) note(s, pathMm);
+      const options = {
         illuminants,
         observers,
         reflection,
         ...(pathMm === undefined ? {} : { pathMm }),
-      })
-    );
-    const s = spectra[0]!;
-    const lo = s.wavelengthNm[0]!, hi = s.wavelengthNm[s.wavelengthNm.length - 1]!;
-    if (lo > 380 || hi < 780) {
-      log(
-        `crystint: ${file}: data cover ${lo}–${hi} nm only; ends extended by constant values (CIE 15)`,
-      );
-    }
-    rows.push(...fileRows);
-  });
-  const records = rows as unknown as Record<string, unknown>[];
-  if (values.json) {
-    console.log(JSON.stringify(rows, null, 2));
-  } else if (values.csv) {
-    Deno.stdout.writeSync(new TextEncoder().encode(toCsv(records, [...COLUMNS, ...EXTRA])));
-  } else {
-    const shown = records.map((r) => {
-      const o: Record<string, unknown> = {};
-      for (const c of [...COLUMNS, "srgb"]) o[c] = round(r[c], ["x", "y"].includes(c) ? 4 : 2);
-      if (r["srgbOutOfGamut"]) o["srgb"] = `${o["srgb"]}*`;
-      return o;
+      };
+      const fileRows = spectra.flatMap((s) => {
+        const plain = spectrumColour(s, options);
+        return uncertainty ? withColorUncertainty(plain, s, uncertainty, options, file) : plain;
+      });
+      const s = spectra[0]!;
+      const lo = s.wavelengthNm[0]!, hi = s.wavelengthNm[s.wavelengthNm.length - 1]!;
+      if (lo > 380 || hi < 780) {
+        log(
+          `crystint: ${file}: data cover ${lo}–${hi} nm only; ends extended by constant values (CIE 15)`,
+        );
+      }
+      rows.push(...fileRows);
     });
-    console.log(toTable(shown, [...COLUMNS.filter((c) => c !== "file"), "srgb"]));
-    if (records.some((r) => r["srgbOutOfGamut"])) {
-      log("* outside the sRGB gamut: the swatch is chroma-reduced");
+    const records = rows as unknown as Record<string, unknown>[];
+    if (format === "json") console.log(JSON.stringify(rows, null, 2));
+    else if (format === "csv") {
+      writeStdout(toCsv(records, [
+        ...COLOR_KEYS,
+        ...COLOR_EXTRA_KEYS,
+        ...(uncertainty ? COLOR_UNCERTAINTY_COLUMNS : []),
+      ]));
+    } else {
+      const shown = records.map((r) => {
+        const o: Record<string, unknown> = {};
+        for (const c of [...COLOR_KEYS, "srgb", ...SHOWN_SD]) {
+          o[c] = round(r[c], ["x", "y"].includes(c) || SHOWN_SD.includes(c) ? 4 : 2);
+        }
+        if (r["srgbOutOfGamut"]) o["srgb"] = `${o["srgb"]} ${MARKS.outOfGamut.symbol}`;
+        return o;
+      });
+      const sd = uncertainty ? SHOWN_SD : [];
+      console.log(toTable(shown, [...COLOR_KEYS.filter((c) => c !== "file"), "srgb", ...sd]));
+      if (records.some((r) => r["srgbOutOfGamut"])) {
+        console.log(`${MARKS.outOfGamut.symbol} ${MARKS.outOfGamut.text}`);
+      }
     }
-  }
-  return failed > 0 ? EXIT.someFailed : EXIT.ok;
-}
+    return failed > 0 ? EXIT.someFailed : EXIT.ok;
+  },
+};

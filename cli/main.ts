@@ -1,76 +1,53 @@
 /**
- * crystint command-line entry point: dispatches to one module per command.
+ * crystint command-line entry point: dispatches to one command table per command.
  *
  * @module
  */
-import { colorCommand } from "./color.ts";
-import { changeCommand } from "./change.ts";
-import { batchCommand } from "./batch.ts";
-import { reportCommand } from "./report.ts";
-import { bandsCommand } from "./bands.ts";
-import { calibrateCommand } from "./calibrate.ts";
-import { predictCommand } from "./predict.ts";
-import { aimCommand } from "./aim.ts";
-import { segregationCommand } from "./segregation.ts";
-import { metamerismCommand, pleochroismCommand } from "./pleochroism.ts";
-import { seriesCommand } from "./series.ts";
-import { EXIT, log, UsageError } from "./_shared.ts";
+import { runCommand, wrap } from "./_command.ts";
+import { COMMANDS } from "./commands.ts";
+import { EXIT, log, UsageError, withFlagHint } from "./_shared.ts";
+import { OBSERVER_NOTE } from "./_options.ts";
 
-const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
-
-Usage:
-  crystint <command> [options]
-
-Commands:
-  color     CIE colour (XYZ, xy, L*a*b*, LCh, swatches) of spectra under chosen illuminants
-  change    colour change between two illuminants (ΔE00, ΔL*, ΔC*, Δh)
-  series    colour against path length: maximum chroma, path to a target L*
-  pleochroism  colours of an o/e pair, unpolarised colour, ΔE00 between o and e
-  metamerism   CIE special metamerism index of two specimens for a change of illuminant
-  bands     detect and fit absorption bands in wavenumber, with assignment hints
-  calibrate straight-line calibration of a band response against analysed standards
-  predict   dopant concentration of samples from a saved calibration
-  aim       dopant levels (and path) that put the colour on a target
-  segregation  Scheil fit of k_eff and C0 along a boule
-  batch     process folders of exports into results.csv, results.json and an HTML report
-  report    re-render the HTML report from a saved results.json
-
-Run "crystint <command> --help" for the options of a command.
-Colour numbers are measurement aids, not a grading or appraisal.
-`;
-
-const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
-  color: colorCommand,
-  change: changeCommand,
-  batch: batchCommand,
-  report: reportCommand,
-  bands: bandsCommand,
-  calibrate: calibrateCommand,
-  predict: predictCommand,
-  aim: aimCommand,
-  segregation: segregationCommand,
-  pleochroism: pleochroismCommand,
-  metamerism: metamerismCommand,
-  series: seriesCommand,
-};
+/** The main help, with the command list generated from the command tables. */
+export function mainHelp(): string {
+  const width = Math.max(...COMMANDS.map((c) => c.name.length)) + 2;
+  return [
+    "crystint — colour, bands and dopant levels of doped crystals from their spectra",
+    "",
+    "Usage:",
+    "  crystint <command> [options]",
+    "",
+    "Commands:",
+    ...COMMANDS.map((c) => `  ${c.name.padEnd(width)}${c.summary}`),
+    "",
+    'Run "crystint <command> --help" for the options of a command.',
+    ...wrap(OBSERVER_NOTE, 100, ""),
+    "Colour numbers are measurement aids, not a grading or appraisal.",
+    "",
+  ].join("\n");
+}
 
 /** Runs crystint with the given arguments and returns the exit code. */
 export async function main(args: string[]): Promise<number> {
   const [name, ...rest] = args;
   if (name === undefined || name === "--help" || name === "-h" || name === "help") {
-    console.log(HELP);
+    console.log(mainHelp());
     return name === undefined ? EXIT.usage : EXIT.ok;
   }
-  const command = COMMANDS[name];
+  const command = COMMANDS.find((c) => c.name === name);
   if (!command) {
-    log(`crystint: unknown command "${name}"\n\n${HELP}`);
+    log(`crystint: unknown command "${name}"\n\n${mainHelp()}`);
     return EXIT.usage;
   }
   try {
-    return await command(rest);
+    return await runCommand(command, rest);
   } catch (e) {
     if (e instanceof UsageError) {
       log(`crystint ${name}: ${e.message}\nRun "crystint ${name} --help" for usage.`);
+      return EXIT.usage;
+    }
+    if ((e as { need?: unknown }).need !== undefined) {
+      log(`crystint ${name}: ${withFlagHint(e)}`);
       return EXIT.usage;
     }
     log(`crystint ${name}: ${(e as Error).stack ?? e}`);

@@ -10,20 +10,35 @@ import {
   type ResponseMetric,
   spectrumResponse,
 } from "../lib/dopant/response_metric.ts";
-import { EXIT, parseCommandArgs, round, toCsv, toTable, UsageError } from "./_shared.ts";
-import { forEachFile, readOptionsFrom } from "./_spectrum_options.ts";
+import type { CommandSpec, ParsedArgs } from "./_command.ts";
+import { EXIT, outputFormat, round, toCsv, toTable, UsageError, writeStdout } from "./_shared.ts";
+import { ALPHA_NOTE, OUTPUT_OPTIONS, READING_OPTIONS } from "./_options.ts";
+import { forEachFile } from "./_spectrum_options.ts";
 
-export const PREDICT_HELP = `crystint predict — dopant concentration from a calibration
-
-Usage:
-  crystint predict FILE… --calibration CAL.json [--thickness MM] [--json|--csv]
-
-Each row: sample, file, response, responseSigma, concentration, concentrationSigma,
-halfWidth95, unit, outsideRange (true when the value lies outside the calibrated range).
-
-Example:
-  crystint predict slabs/*.csv --calibration cr-cal.json --json
-`;
+/** The command table of `crystint predict`. */
+export const PREDICT_COMMAND: CommandSpec = {
+  name: "predict",
+  summary: "dopant concentration of samples from a saved calibration",
+  usage: ["FILE… --calibration CAL.json [--thickness MM] [--json|--csv]"],
+  positionals: "FILE… spectrum exports of the samples.",
+  options: [
+    {
+      name: "calibration",
+      type: "string",
+      arg: "CAL.json",
+      help: 'calibration written by "crystint calibrate --out" (required)',
+    },
+    ...READING_OPTIONS,
+    ...OUTPUT_OPTIONS,
+  ],
+  notes: [
+    "Each row: sample, file, response, responseSigma, concentration, concentrationSigma, " +
+    "halfWidth95, unit, outsideRange (true when the value lies outside the calibrated range).",
+    ALPHA_NOTE,
+  ],
+  examples: ["slabs/*.csv --calibration cr-cal.json --json"],
+  run: predictCommand,
+};
 
 /** Reads a calibration file written by `crystint calibrate --out`. */
 export async function readCalibration(path: string): Promise<Calibration> {
@@ -40,30 +55,26 @@ export async function readCalibration(path: string): Promise<Calibration> {
 }
 
 /** Runs the command; returns the exit code. */
-export async function predictCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
-    calibration: { type: "string" },
-    ordinate: { type: "string" },
-    axis: { type: "string" },
-    thickness: { type: "string" },
-    json: { type: "boolean" },
-    csv: { type: "boolean" },
-    help: { type: "boolean", short: "h" },
-  });
-  if (values.help) {
-    console.log(PREDICT_HELP);
-    return EXIT.ok;
-  }
+async function predictCommand(args: ParsedArgs): Promise<number> {
+  const positionals = args.positionals;
+  const values = { calibration: args.string("calibration") };
+  const format = outputFormat(args.flag("json"), args.flag("csv"));
   if (!values.calibration) throw new UsageError("Option --calibration CAL.json is required");
   if (positionals.length === 0) {
     throw new UsageError("No input files: give one or more spectrum files");
   }
   const cal = await readCalibration(values.calibration);
+  const calBase = (cal as { alphaBase?: string }).alphaBase;
+  if (calBase !== undefined && calBase !== "e") {
+    throw new UsageError(
+      `${values.calibration} records α base "${calBase}"; crystint calibrations use natural α (e)`,
+    );
+  }
   if (cal.metric === "response") {
     throw new UsageError("This calibration was made from ready responses; it cannot read spectra");
   }
   const rows: Record<string, unknown>[] = [];
-  const failed = await forEachFile(positionals, readOptionsFrom(values), (spectra, file) => {
+  const failed = await forEachFile(positionals, args, (spectra, file) => {
     for (const s of spectra) {
       const r = spectrumResponse(
         s,
@@ -95,8 +106,8 @@ export async function predictCommand(args: string[]): Promise<number> {
     "unit",
     "outsideRange",
   ];
-  if (values.json) console.log(JSON.stringify(rows, null, 2));
-  else if (values.csv) Deno.stdout.writeSync(new TextEncoder().encode(toCsv(rows, cols)));
+  if (format === "json") console.log(JSON.stringify(rows, null, 2));
+  else if (format === "csv") writeStdout(toCsv(rows, cols));
   else {
     console.log(
       toTable(

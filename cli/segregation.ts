@@ -5,35 +5,49 @@
  */
 import { parse } from "csv-parse/sync";
 import { fitScheil, fractionFromPosition, type SegregationPoint } from "../lib/dopant/scheil.ts";
-import { EXIT, parseCommandArgs, positiveNumber, round, toTable, UsageError } from "./_shared.ts";
+import type { CommandSpec, ParsedArgs } from "./_command.ts";
+import {
+  EXIT,
+  outputFormat,
+  positiveNumber,
+  round,
+  toCsv,
+  toTable,
+  UsageError,
+  writeStdout,
+} from "./_shared.ts";
+import { OUTPUT_OPTIONS } from "./_options.ts";
 
-export const SEGREGATION_HELP =
-  `crystint segregation — k_eff and melt concentration from a boule profile
-
-Usage:
-  crystint segregation PROFILE.csv [--length MM] [--json]
-
-PROFILE.csv columns: fraction (solidified, 0…1) or position_mm (from the seed end, with
---length for a cylindrical boule), concentration, optional sigma. Fits the Scheil relation
-C_s = k·C₀·(1 − g)^(k − 1) by least squares (weighted by 1/σ² when every row has σ).
-
-Example:
-  crystint segregation boule-B26.csv --length 80 --json
-`;
+/** The command table of `crystint segregation`. */
+export const SEGREGATION_COMMAND: CommandSpec = {
+  name: "segregation",
+  summary: "Scheil fit of k_eff and C0 along a boule",
+  usage: ["PROFILE.csv [--length MM] [--json|--csv]"],
+  positionals: "PROFILE.csv columns: fraction (solidified, 0…1) or position_mm (from the seed " +
+    "end, with --length for a cylindrical boule), concentration, optional sigma.",
+  options: [
+    {
+      name: "length",
+      type: "string",
+      arg: "MM",
+      help: "boule length, to turn position_mm into the solidified fraction",
+    },
+    ...OUTPUT_OPTIONS,
+  ],
+  notes: [
+    "Fits the Scheil relation C_s = k·C₀·(1 − g)^(k − 1) by least squares (weighted by 1/σ² " +
+    "when every row has σ). --csv prints one row: k, kSigma, c0, c0Sigma, n, residualRms.",
+  ],
+  examples: ["boule-B26.csv --length 80 --json"],
+  run: segregationCommand,
+};
 
 /** Runs the command; returns the exit code. */
-export async function segregationCommand(args: string[]): Promise<number> {
-  const { values, positionals } = parseCommandArgs(args, {
-    length: { type: "string" },
-    json: { type: "boolean" },
-    help: { type: "boolean", short: "h" },
-  });
-  if (values.help) {
-    console.log(SEGREGATION_HELP);
-    return EXIT.ok;
-  }
+async function segregationCommand(args: ParsedArgs): Promise<number> {
+  const positionals = args.positionals;
+  const format = outputFormat(args.flag("json"), args.flag("csv"));
   if (positionals.length !== 1) throw new UsageError("Give exactly one profile table");
-  const length = positiveNumber(values.length, "length");
+  const length = positiveNumber(args.string("length"), "length");
   let records: Record<string, string>[];
   try {
     records = parse(await Deno.readTextFile(positionals[0]!), {
@@ -73,14 +87,25 @@ export async function segregationCommand(args: string[]): Promise<number> {
   } catch (e) {
     throw new UsageError((e as Error).message);
   }
-  if (values.json) console.log(JSON.stringify(fit, null, 2));
-  else {console.log(
+  if (format === "json") console.log(JSON.stringify(fit, null, 2));
+  else if (format === "csv") {
+    writeStdout(toCsv([fit as unknown as Record<string, unknown>], [
+      "k",
+      "kSigma",
+      "c0",
+      "c0Sigma",
+      "n",
+      "residualRms",
+    ]));
+  } else {
+    console.log(
       toTable([{
         k: `${round(fit.k, 4)} ± ${round(fit.kSigma, 4)}`,
         C0: `${round(fit.c0, 5)} ± ${round(fit.c0Sigma, 5)}`,
         points: fit.n,
         rms: round(fit.residualRms, 5),
       }], ["k", "C0", "points", "rms"]),
-    );}
+    );
+  }
   return EXIT.ok;
 }

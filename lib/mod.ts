@@ -1,24 +1,142 @@
 /**
  * crystint — colour, bands and dopant levels of doped oxide crystals from their spectra.
  *
- * The stable public face of the library: the spectrum model, reading exports, and CIE
- * colorimetry. Everything here runs without file-system access except `readSpectrumFile`.
+ * The curated face of the library, for notebooks and other Deno programs: read an export into
+ * spectra, compute CIE colour at any path length, colour differences and change, fit bands,
+ * calibrate and predict dopant levels, aim a doping at a target colour, or run the whole
+ * analysis of one sample. Everything here is pure computation except `readSpectrumFile`, which
+ * reads one file (needs `--allow-read`). The batch runner and the report writer live in the
+ * CLI's layers (`lib/batch`, `lib/report`), not here.
  *
- * @example Colour difference of two CIELAB colours
+ * @example Colour of a stone at its finished path, from an export's bytes
+ * ```ts
+ * import { readSpectraFromBytes, spectrumColour } from "./mod.ts";
+ * const rows = ["wavelength_nm,T"];
+ * for (let nm = 360; nm <= 830; nm += 5) rows.push(`${nm},${nm > 600 ? 0.8 : 0.3}`);
+ * const [stone] = readSpectraFromBytes(new TextEncoder().encode(rows.join("\n")), "red.csv", {
+ *   thicknessMm: 2,
+ * });
+ * const [day] = spectrumColour(stone!, { illuminants: ["D65"], observers: ["2"], pathMm: 6 });
+ * if (!(day!.a > 0 && day!.L < 80)) throw new Error("a red stone should have a* > 0");
+ * ```
+ *
+ * @example Colour difference of two CIELAB colours (Sharma, Wu & Dalal 2005, pair 1)
  * ```ts
  * import { deltaE2000 } from "./mod.ts";
- * const dE = deltaE2000({ L: 50, a: 2.5, b: 0 }, { L: 50, a: 0, b: -2.5 });
- * if (Math.abs(dE - 4.3065) > 1e-4) throw new Error(String(dE));
+ * const dE = deltaE2000({ L: 50, a: 2.6772, b: -79.7751 }, { L: 50, a: 0, b: -82.7485 });
+ * if (Math.abs(dE - 2.0425) > 1e-4) throw new Error(String(dE));
+ * ```
+
+ * @example Path rescaling with both Fresnel surfaces (incoherent slab, closed form)
+ * ```ts
+ * import { readSpectraFromBytes, transmittanceForPath } from "./mod.ts";
+ * const rows = ["wavelength_nm,T"];
+ * for (let nm = 360; nm <= 830; nm += 10) rows.push(`${nm},0.6`);
+ * const [slab] = readSpectraFromBytes(new TextEncoder().encode(rows.join("\n")), "s.csv", {
+ *   thicknessMm: 2,
+ * });
+ * const n = 1.76, R = ((n - 1) / (n + 1)) ** 2;
+ * const t4 = transmittanceForPath(slab!, 4, { reflection: "host", n }).values[0]!;
+ * // internal transmittance x from T = (1−R)²x / (1 − R²x²), then x doubles its exponent
+ * const x2 = (-((1 - R) ** 2) + Math.sqrt((1 - R) ** 4 + 4 * R * R * 0.36)) / (2 * R * R * 0.6);
+ * const x4 = x2 * x2;
+ * const expected = ((1 - R) ** 2 * x4) / (1 - R * R * x4 * x4);
+ * if (Math.abs(t4 - expected) > 1e-9) throw new Error(`${t4} vs ${expected}`);
+ * ```
+ *
+ * @example Colour change D65 → A: a neutral grey does not change (each under its own white)
+ * ```ts
+ * import { colourChange } from "./mod.ts";
+ * const nm = Array.from({ length: 48 }, (_, i) => 360 + 10 * i);
+ * const grey = colourChange(nm, nm.map(() => 0.4), "D65", "A", "2");
+ * if (grey.dE00 > 1e-6) throw new Error(String(grey.dE00));
+ * const red = colourChange(nm, nm.map((w) => (w > 620 ? 0.9 : 0.05)), "D65", "A", "2");
+ * if (!(red.dE00 > 1)) throw new Error("a red filter changes visibly between D65 and A");
+ * ```
+ *
+ * @example Band fit in wavenumber: a Gaussian band's centre, width and area come back
+ * ```ts
+ * import { fitBandsCm1 } from "./mod.ts";
+ * const K = 2 * Math.sqrt(2 * Math.LN2); // FWHM = K·σ of a Gaussian
+ * const x = Array.from({ length: 600 }, (_, i) => 12000 + 20 * i);
+ * const y = x.map((v) => 0.02 + 0.8 * Math.exp(-0.5 * ((v - 18000) / (2000 / K)) ** 2));
+ * const fit = fitBandsCm1(x, y, {
+ *   candidates: [{ centerCm1: 17800, fwhmCm1: 2200, height: 0.7, significance: 10 }],
+ * });
+ * const band = fit.bands[0]!;
+ * if (Math.abs(band.centerCm1 - 18000) > 5) throw new Error(String(band.centerCm1));
+ * // area of a Gaussian: height · FWHM · √(π / (4 ln 2))
+ * const area = 0.8 * 2000 * Math.sqrt(Math.PI / (4 * Math.LN2));
+ * if (Math.abs(band.area / area - 1) > 0.01) throw new Error(String(band.area));
+ * ```
+ *
+ * @example Calibration and inverse prediction (Miller & Miller's worked example: x0 = 6.21)
+ * ```ts
+ * import { fitCalibration, predictConcentration } from "./mod.ts";
+ * const x = [0, 2, 4, 6, 8, 10, 12], y = [2.1, 5.0, 9.0, 12.6, 17.3, 21.0, 24.7];
+ * const cal = fitCalibration(x.map((xi, i) => ({ x: xi, y: y[i]! })), "ols", "pg/ml");
+ * if (Math.abs(cal.slope - 1.93) > 0.005) throw new Error(String(cal.slope));
+ * const p = predictConcentration(cal, 13.5);
+ * if (Math.abs(p.x - 6.21) > 0.01 || Math.abs(p.sigma - 0.24) > 0.01) throw new Error(String(p.x));
+ * ```
+ *
+ * @example Aim: the level that gives a target colour is found again from that colour
+ * ```ts
+ * import { aimDoping, type AimProblem, predictLab } from "./mod.ts";
+ * const nm = Float64Array.from({ length: 95 }, (_, i) => 360 + 5 * i);
+ * // an invented green-absorbing dopant: α per unit level peaks at 550 nm
+ * const perUnit = nm.map((w) => 2 * Math.exp(-0.5 * ((w - 550) / 40) ** 2));
+ * const problem: AimProblem = {
+ *   wavelengthNm: nm,
+ *   dopants: [{ name: "X", alphaPerUnit: perUnit }],
+ *   path: 5,
+ *   targets: [],
+ * };
+ * const [lab] = predictLab({ ...problem, targets: [{ lab: { L: 0, a: 0, b: 0 }, illuminant: "D65", observer: "2" }] }, [0.7], 5);
+ * const result = aimDoping({ ...problem, targets: [{ lab: lab!, illuminant: "D65", observer: "2" }] });
+ * if (Math.abs(result.levels.X! - 0.7) > 0.01 || !result.reachable) throw new Error(result.message);
  * ```
  *
  * @module
  */
-export * from "./spectrum/mod.ts";
-export * from "./io/mod.ts";
-export * from "./cie/mod.ts";
-export * from "./optics/mod.ts";
-export * from "./dopant/mod.ts";
-export * from "./report/mod.ts";
-export * from "./batch/mod.ts";
+export type { Polarisation, Quantity, Spectrum, SpectrumMeta } from "./spectrum/spectrum.ts";
+export { type NeededValue, NeedsValueError } from "./spectrum/needs_value_error.ts";
+export { InputError } from "./io/input_error.ts";
+export { type ReadOptions, readSpectraFromBytes } from "./io/read_spectra.ts";
+export { readSpectrumFile } from "./io/read_file.ts";
+
+export { type ColourOptions, type ColourRow, spectrumColour } from "./cie/spectrum_colour.ts";
+export { type Lab, labToLch, type Lch, xyzToLab } from "./cie/spaces.ts";
+export { deltaE2000, deltaE76, deltaE94, deltaECmc } from "./cie/delta_e.ts";
+export { type ColourChange, colourChange } from "./cie/colour_change.ts";
+export { type ThicknessSeries, thicknessSeries } from "./cie/thickness_series.ts";
+export { getIlluminant, type Illuminant, ILLUMINANT_NAMES } from "./cie/illuminants.ts";
+
+export { type ReflectionSettings, transmittanceForPath } from "./optics/path_transmittance.ts";
+export { getHost, parseSellmeier } from "./optics/refractive_index.ts";
+
+export {
+  type BandFit,
+  fitBandsCm1,
+  type FitOptions,
+  fitSpectrumBands,
+  type FittedBand,
+} from "./bands/fit_bands.ts";
+export { assignBands, type BandAssignment } from "./bands/assign_bands.ts";
+
+export {
+  type Calibration,
+  fitCalibration,
+  predictConcentration,
+} from "./dopant/linear_calibration.ts";
+export { spectrumResponse } from "./dopant/response_metric.ts";
+export { aimDoping, type AimProblem, type AimResult, predictLab } from "./dopant/aim_doping.ts";
+export { checkTarget, type TargetCheck } from "./dopant/target.ts";
+export { fitScheil } from "./dopant/scheil.ts";
+export { smakulaDexter } from "./dopant/smakula_dexter.ts";
+
+export { analyseFile, analyseSample } from "./analysis/analyse_sample.ts";
+export type { SampleSettings } from "./analysis/sample_settings.ts";
+export type { SampleResult } from "./analysis/sample_result.ts";
+export type { ResultsDocument } from "./analysis/results_document.ts";
 export { VERSION } from "./version.ts";
-export * from "./bands/mod.ts";

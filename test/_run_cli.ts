@@ -72,3 +72,29 @@ export async function makeLot(count: number, withBad = true): Promise<string> {
   }
   return dir;
 }
+
+/**
+ * Runs the demo batch into `out` as `deno task demo` does (calibration first, into
+ * reports/demo where the demo settings look for it); returns the batch's result.
+ */
+export async function runDemoBatch(out: string): Promise<CliResult> {
+  await Deno.mkdir(`${ROOT}reports/demo`, { recursive: true });
+  const cal = await runCli(
+    "calibrate",
+    `${ROOT}spectra/standards/standards.csv`,
+    "--out",
+    `${ROOT}reports/demo/cr-calibration.json`,
+  );
+  if (cal.code !== 0) throw new Error(`demo calibration failed: ${cal.stderr}`);
+  return await runCli(
+    "batch",
+    `${ROOT}spectra/demo`,
+    "--manifest",
+    `${ROOT}spectra/demo/manifest.csv`,
+    "--settings",
+    `${ROOT}spectra/demo/settings.yaml`,
+    "--out",
+    out,
+    "--quiet",
+  );
+}

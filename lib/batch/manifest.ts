@@ -5,7 +5,7 @@
  * @module
  */
 import { parseSheet } from "../io/parse_sheet.ts";
-import { SettingsError } from "./settings.ts";
+import { SettingsError } from "./settings_schema.ts";
 
 /** One manifest row with the columns crystint knows, the rest kept in `extra`. */
 export interface ManifestRow {

@@ -1,9 +1,10 @@
 /**
- * A fixed pool of Deno Workers running sample_result.ts jobs, sized to the machine.
+ * A fixed pool of Deno Workers running the analysis of one file per job, sized to the machine.
  *
  * @module
  */
-import type { SampleResult, SampleSettings } from "./sample_result.ts";
+import type { SampleResult } from "../analysis/sample_result.ts";
+import type { SampleSettings } from "../analysis/sample_settings.ts";
 
 /** What a job gives back. */
 export type JobOutcome =

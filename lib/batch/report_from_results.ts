@@ -1,62 +1,77 @@
 /**
- * Re-renders index.html from a saved results.json.
+ * Re-renders index.html from a saved results.json, through the same builder the batch uses,
+ * so the page is the batch's page byte for byte.
  *
  * @module
  */
-import {
-  locusForReport,
-  type ReportDetail,
-  reportDetail,
-  reportRow,
-} from "../report/report_data.ts";
-import { renderReport } from "../report/render_report.ts";
+import type { ReportHeader, ResultsDocument } from "../analysis/results_document.ts";
+import { renderResults } from "../report/report_input.ts";
 import { readChartBundle } from "./chart_bundle.ts";
 import { writeTextAtomic } from "./atomic_write.ts";
-import { SettingsError } from "./settings.ts";
-import type { SampleResult } from "./sample_result.ts";
+import { SettingsError } from "./settings_schema.ts";
+
+/** The report block of a results file, keeping only text fields of the known names. */
+function reportHeaderOf(v: unknown): ReportHeader | undefined {
+  if (!v || typeof v !== "object") return undefined;
+  const o = v as Record<string, unknown>;
+  const text = (k: string) => (typeof o[k] === "string" ? { [k]: o[k] as string } : {});
+  return {
+    ...text("title"),
+    ...text("lab"),
+    ...text("client"),
+    ...text("operator"),
+    ...text("note"),
+    date: typeof o.date === "string" ? o.date : "",
+    audience: o.audience === "client" ? "client" : "internal",
+  };
+}
+
+/** Checks the shape of a parsed results document. */
+function checkResults(parsed: unknown, resultsPath: string): ResultsDocument {
+  const doc = parsed as Partial<ResultsDocument> | null;
+  if (
+    !doc || typeof doc !== "object" || !Array.isArray(doc.samples) || !Array.isArray(doc.errors)
+  ) {
+    throw new SettingsError(
+      `${resultsPath} is not a crystint results file (needs "samples" and "errors")`,
+    );
+  }
+  return {
+    version: typeof doc.version === "string" ? doc.version : "unknown",
+    settings: doc.settings ?? null,
+    settingsSummary: doc.settingsSummary && typeof doc.settingsSummary === "object"
+      ? doc.settingsSummary
+      : {},
+    calibrations: Array.isArray(doc.calibrations) ? doc.calibrations : [],
+    detailLimit: typeof doc.detailLimit === "number" ? doc.detailLimit : 2000,
+    ...(doc.report ? { report: reportHeaderOf(doc.report)! } : {}),
+    samples: doc.samples,
+    errors: doc.errors,
+    manifest: Array.isArray(doc.manifest) ? doc.manifest : [],
+  };
+}
 
 /**
- * Reads results.json and writes DIR/index.html.
+ * Reads results.json and writes DIR/index.html; returns the page's path.
  *
  * @throws {SettingsError} When the results file cannot be read or is not crystint results.
  */
-export async function reportFromResults(
-  resultsPath: string,
-  outDir: string,
-  detailLimit = 2000,
-): Promise<string> {
-  let parsed: {
-    version?: string;
-    samples?: SampleResult[];
-    errors?: { file: string; message: string }[];
-    manifest?: string[];
-    settings?: Record<string, unknown>;
-  };
+export async function reportFromResults(resultsPath: string, outDir: string): Promise<string> {
+  let parsed: unknown;
   try {
     parsed = JSON.parse(await Deno.readTextFile(resultsPath));
   } catch (e) {
     throw new SettingsError(`Cannot read results ${resultsPath}: ${(e as Error).message}`);
   }
-  if (!Array.isArray(parsed.samples) || !Array.isArray(parsed.errors)) {
+  const doc = checkResults(parsed, resultsPath);
+  let html: string;
+  try {
+    html = renderResults(doc, await readChartBundle());
+  } catch (e) {
     throw new SettingsError(
-      `${resultsPath} is not a crystint results file (needs "samples" and "errors")`,
+      `${resultsPath} holds results the report cannot show: ${(e as Error).message}`,
     );
   }
-  const details: Record<number, ReportDetail> = {};
-  const rows = parsed.samples.map((s, i) => {
-    if (i < detailLimit) details[i] = reportDetail(s);
-    return reportRow(s, i);
-  });
-  const html = renderReport({
-    version: parsed.version ?? "unknown",
-    settingsSummary: { source: resultsPath },
-    rows,
-    details,
-    detailLimit,
-    errors: parsed.errors,
-    manifestNotes: parsed.manifest ?? [],
-    locus: locusForReport(),
-  }, await readChartBundle());
   await Deno.mkdir(outDir, { recursive: true });
   const out = `${outDir.replace(/\/$/, "")}/index.html`;
   await writeTextAtomic(out, html);

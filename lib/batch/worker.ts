@@ -1,10 +1,11 @@
 /// <reference lib="deno.worker" />
 /**
- * Batch worker: computes the results of one file per message (see sample_result.ts).
+ * Batch worker: computes the results of one file per message (see lib/analysis).
  *
  * @module
  */
-import { processFile, type SampleSettings } from "./sample_result.ts";
+import { analyseFile } from "../analysis/analyse_sample.ts";
+import type { SampleSettings } from "../analysis/sample_settings.ts";
 import { InputError } from "../io/input_error.ts";
 
 /** A job sent to the worker. */
@@ -18,7 +19,7 @@ export interface WorkerJob {
 self.onmessage = (event: MessageEvent<WorkerJob>) => {
   const { id, file, bytes, settings } = event.data;
   try {
-    self.postMessage({ id, ok: true, results: processFile(bytes, file, settings) });
+    self.postMessage({ id, ok: true, results: analyseFile(bytes, file, settings) });
   } catch (e) {
     const error = e instanceof InputError
       ? { message: e.message, problem: e.problem, line: e.line ?? null }

@@ -7,7 +7,7 @@
  *
  * @module
  */
-import { GRID_LENGTH, GRID_START_NM } from "./grid.ts";
+import { GRID_LENGTH, GRID_NM, GRID_START_NM } from "./grid.ts";
 
 /** How measured data were carried onto the 1 nm grid. */
 export type InterpolationMethod = "sprague" | "pchip" | "astm-e2022-lagrange" | "linear";
@@ -137,8 +137,32 @@ export function resampleTo1nm(
   values: ArrayLike<number>,
   method: InterpolationMethod = chooseMethod(wavelengthNm),
 ): GridResample {
+  const first = wavelengthNm[0]!, last = wavelengthNm[wavelengthNm.length - 1]!;
+  return {
+    values: resampleToGrid(wavelengthNm, values, GRID_NM, method),
+    method,
+    extrapolatedBelow: first > GRID_START_NM + TOLERANCE_NM,
+    extrapolatedAbove: last < GRID_START_NM + GRID_LENGTH - 1 - TOLERANCE_NM,
+  };
+}
+
+/**
+ * Carries measured data onto any ascending grid with the same CIE 167 methods as
+ * {@linkcode resampleTo1nm} (end values held outside the data, CIE 15:2018 §7.2.2).
+ *
+ * @param wavelengthNm Strictly ascending abscissae (any unit, the same as `grid`).
+ * @param values Values at those abscissae.
+ * @param grid Ascending abscissae to interpolate at.
+ * @param method Defaults to {@linkcode chooseMethod}'s choice.
+ */
+export function resampleToGrid(
+  wavelengthNm: ArrayLike<number>,
+  values: ArrayLike<number>,
+  grid: ArrayLike<number>,
+  method: InterpolationMethod = chooseMethod(wavelengthNm),
+): Float64Array<ArrayBuffer> {
   const n = wavelengthNm.length;
-  const out = new Float64Array(GRID_LENGTH);
+  const out = new Float64Array(grid.length);
   const first = wavelengthNm[0]!, last = wavelengthNm[n - 1]!;
   const extended = method === "sprague" ? spragueExtend(values) : undefined;
   const slopes = method === "pchip" ? pchipSlopes(wavelengthNm, values) : undefined;
@@ -146,8 +170,8 @@ export function resampleTo1nm(
     ? (last - first) / (n - 1)
     : 0;
   let j = 0;
-  for (let g = 0; g < GRID_LENGTH; g++) {
-    const wl = GRID_START_NM + g;
+  for (let g = 0; g < grid.length; g++) {
+    const wl = grid[g]!;
     if (wl <= first + TOLERANCE_NM) {
       out[g] = values[0]!;
       continue;
@@ -185,10 +209,5 @@ export function resampleTo1nm(
       out[g] = y0 + (y1 - y0) * t;
     }
   }
-  return {
-    values: out,
-    method,
-    extrapolatedBelow: first > GRID_START_NM + TOLERANCE_NM,
-    extrapolatedAbove: last < GRID_START_NM + GRID_LENGTH - 1 - TOLERANCE_NM,
-  };
+  return out;
 }

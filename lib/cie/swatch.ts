@@ -7,7 +7,10 @@
  *
  * @module
  */
-import Color from "color";
+// A full specifier: a program outside this repository that imports lib/mod.ts by path resolves it
+// without our deno.json (the import map applies only inside the project).
+// deno-lint-ignore no-import-prefix
+import Color from "npm:color@^5.0.0";
 import { adaptXyz, invert, multiply } from "./adaptation.ts";
 import type { Xyz } from "./tristimulus.ts";
 import { labToXyz, xyzToLab } from "./spaces.ts";

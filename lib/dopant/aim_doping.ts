@@ -15,27 +15,37 @@ import { nelderMead } from "../numeric/nelder_mead.ts";
 
 /** One dopant: α in cm⁻¹ per unit level on the problem's grid. */
 export interface DopantSpectrum {
+  /** Dopant name, e.g. Cr. */
   name: string;
+  /** α (cm⁻¹, natural log) per unit level at each wavelength. */
   alphaPerUnit: Float64Array;
 }
 
 /** A target colour under one illuminant and observer, with its weight in the objective. */
 export interface AimTarget {
+  /** Target CIELAB. */
   lab: Lab;
+  /** Illuminant of the target. */
   illuminant: string;
+  /** Observer of the target. */
   observer: string;
+  /** Weight in the objective (default 1). */
   weight?: number;
 }
 
 /** The problem to solve. */
 export interface AimProblem {
+  /** Wavelength grid, nm. */
   wavelengthNm: Float64Array;
+  /** The dopants whose levels are sought. */
   dopants: DopantSpectrum[];
+  /** α of the undoped host, cm⁻¹ (default 0). */
   baseAlpha?: Float64Array;
   /** Fixed path in mm, or bounds when the path is free. */
   path: number | { minMm: number; maxMm: number };
   /** Surface reflectance R(λ) of each face; omit for no surfaces. */
   surfaceReflectance?: Float64Array;
+  /** Target colours. */
   targets: AimTarget[];
   /** Upper bound of each level (default 100× the level that gives α = 10 cm⁻¹ at its peak). */
   maxLevels?: number[];
@@ -45,18 +55,25 @@ export interface AimProblem {
 
 /** The answer. */
 export interface AimResult {
+  /** Level of each dopant, in its unit spectrum's units. */
   levels: Record<string, number>;
+  /** Path, mm. */
   pathMm: number;
   /** Achieved colour under the first target's illuminant. */
   L: number;
+  /** Achieved a*. */
   a: number;
+  /** Achieved b*. */
   b: number;
   /** ΔE00 to the first target; `dE00All` lists every target. */
   dE00: number;
+  /** ΔE00 to every target. */
   dE00All: number[];
   /** ΔE00 per unit change of each level, from the achieved colour (first target). */
   sensitivity: Record<string, number>;
+  /** Whether the best ΔE00 is within the reachable limit. */
   reachable: boolean;
+  /** What the result means, in words. */
   message: string;
 }
 

@@ -12,10 +12,15 @@ import { studentTQuantile } from "../numeric/student_t.ts";
 
 /** One standard: concentration x (with optional σ) and response y (with optional σ). */
 export interface CalibrationPoint {
+  /** Name of the standard. */
   sample?: string;
+  /** Concentration. */
   x: number;
+  /** Response. */
   y: number;
+  /** Standard uncertainty of the concentration. */
   sigmaX?: number;
+  /** Standard uncertainty of the response (weights a weighted fit). */
   sigmaY?: number;
 }
 
@@ -24,31 +29,51 @@ export type CalibrationMode = "ols" | "origin" | "weighted";
 
 /** A fitted calibration line y = intercept + slope·x. */
 export interface Calibration {
+  /** How the line was fitted. */
   mode: CalibrationMode;
+  /** Slope b. */
   slope: number;
+  /** Intercept a (0 through the origin). */
   intercept: number;
+  /** Standard error of the slope. */
   slopeSigma: number;
+  /** Standard error of the intercept. */
   interceptSigma: number;
   /** cov(slope, intercept). */
   covariance: number;
+  /** Coefficient of determination. */
   r2: number;
   /** Residual standard deviation s_y/x (for weighted fits, of unit weight). */
   syx: number;
+  /** Number of standards. */
   n: number;
+  /** Degrees of freedom of the residual. */
   dof: number;
   /** Two-sided 95 % Student t for dof. */
   t95: number;
+  /** Limit of detection (see `lodConvention`). */
   lod: number;
+  /** Limit of quantification. */
   loq: number;
+  /** How LOD and LOQ were defined (Miller & Miller). */
   lodConvention: string;
+  /** Residual of each standard. */
   residuals: number[];
+  /** The standards. */
   points: CalibrationPoint[];
+  /** Lowest and highest concentration of the standards. */
   xRange: [number, number];
+  /** Mean concentration. */
   meanX: number;
+  /** Mean response. */
   meanY: number;
+  /** Σ(x − x̄)². */
   sxx: number;
+  /** Concentration unit. */
   unit: string;
+  /** Response metric (band-area, band-height, alpha-at). */
   metric: string;
+  /** Options of the metric (band centre, wavelength, window). */
   metricOptions: Record<string, unknown>;
 }
 
@@ -153,11 +178,13 @@ export function fitCalibration(
 
 /** An inverse prediction: concentration from a measured response. */
 export interface Prediction {
+  /** Estimated concentration. */
   x: number;
   /** Standard error of x (Miller & Miller eq. 5.9, plus the response's own σ when given). */
   sigma: number;
   /** Half-width of the 95 % interval, t95·σ. */
   halfWidth95: number;
+  /** Whether the estimate lies outside the standards' range. */
   outsideRange: boolean;
 }
 

@@ -11,3 +11,4 @@ export * from "./standards.ts";
 export * from "./smakula_dexter.ts";
 export * from "./scheil.ts";
 export * from "./aim_doping.ts";
+export * from "./response_header.ts";

@@ -7,11 +7,30 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { spectrumAbsorbance } from "../spectrum/ordinate.ts";
-import { fitBandsCm1 } from "../bands/fit_bands.ts";
+import { fitBandsCm1, type FittedBand } from "../bands/fit_bands.ts";
+import { nmToWavenumber } from "../spectrum/axis.ts";
 import { valueAt } from "../spectrum/linear_resample.ts";
+import { NeedsValueError } from "../spectrum/needs_value_error.ts";
 
 /** The metrics. */
 export type ResponseMetric = "band-area" | "band-height" | "alpha-at";
+
+/** The metrics a spectrum can be measured by. */
+export const RESPONSE_METRICS: readonly ResponseMetric[] = ["band-area", "band-height", "alpha-at"];
+
+/**
+ * Checks that a calibration's metric can be measured on a spectrum.
+ *
+ * @throws {RangeError} For a calibration made from ready response values of an unnamed metric.
+ */
+export function spectrumMetric(metric: string): ResponseMetric {
+  if ((RESPONSE_METRICS as readonly string[]).includes(metric)) return metric as ResponseMetric;
+  throw new RangeError(
+    `The calibration's response is "${metric}", which cannot be measured on a spectrum: it needs ` +
+      `one of ${RESPONSE_METRICS.join(", ")} (name it in the standards table's header, e.g. ` +
+      `"band height (cm-1) @ 555 nm", or compute the responses from spectra)`,
+  );
+}
 
 /** Options of a metric. */
 export interface MetricOptions {
@@ -25,7 +44,9 @@ export interface MetricOptions {
 
 /** A response with its standard error. */
 export interface Response {
+  /** The response. */
   value: number;
+  /** Its standard error. */
   sigma: number;
 }
 
@@ -34,8 +55,9 @@ export function alphaOf(spectrum: Spectrum): Float64Array<ArrayBuffer> {
   if (spectrum.quantity === "alpha") return spectrum.values.slice();
   const d = spectrum.thicknessMm;
   if (d === undefined) {
-    throw new RangeError(
-      `Cannot compute α of "${spectrum.meta.sample}": the thickness is not known (give --thickness)`,
+    throw new NeedsValueError(
+      `Cannot compute α of "${spectrum.meta.sample}": the thickness is not known`,
+      "thickness",
     );
   }
   return spectrumAbsorbance(spectrum).map((a) => (a * Math.LN10) / (d / 10));
@@ -51,6 +73,7 @@ export function spectrumResponse(
   metric: ResponseMetric,
   options: MetricOptions = {},
 ): Response {
+  spectrumMetric(metric);
   const alpha = alphaOf(spectrum);
   const nm = spectrum.wavelengthNm;
   if (metric === "alpha-at") {
@@ -69,18 +92,31 @@ export function spectrumResponse(
       sigma: sd * Math.sqrt(1 + 1 / inWindow.length),
     };
   }
-  const fit = fitBandsCm1([...nm].map((v) => 1e7 / v), alpha, {}, "alpha");
-  const want = 1e7 / (options.bandNm ?? 555);
+  const fit = fitBandsCm1([...nm].map(nmToWavenumber), alpha, {}, "alpha");
+  return responseFromBands(fit.bands, 1, metric, options, spectrum.meta.sample);
+}
+
+/**
+ * The band response from bands already fitted: the band nearest the metric's centre, its
+ * height or area scaled to α (cm⁻¹) by `toAlpha` (1 for a fit of α; ln 10 / d[cm] for a fit of
+ * decadic absorbance at thickness d, by Beer–Lambert).
+ *
+ * @throws {RangeError} When no band lies near the metric's centre.
+ */
+export function responseFromBands(
+  bands: FittedBand[],
+  toAlpha: number,
+  metric: Exclude<ResponseMetric, "alpha-at">,
+  options: MetricOptions = {},
+  sample = "",
+): Response {
+  const want = nmToWavenumber(options.bandNm ?? 555);
   const band =
-    fit.bands.slice().sort((a, b) =>
-      Math.abs(a.centerCm1 - want) - Math.abs(b.centerCm1 - want)
-    )[0];
+    bands.slice().sort((a, b) => Math.abs(a.centerCm1 - want) - Math.abs(b.centerCm1 - want))[0];
   if (!band || Math.abs(band.centerCm1 - want) > Math.max(1500, band.fwhmCm1)) {
-    throw new RangeError(
-      `No band found near ${options.bandNm ?? 555} nm in "${spectrum.meta.sample}"`,
-    );
+    throw new RangeError(`No band found near ${options.bandNm ?? 555} nm in "${sample}"`);
   }
   return metric === "band-area"
-    ? { value: band.area, sigma: band.areaSigma }
-    : { value: band.height, sigma: band.heightSigma };
+    ? { value: band.area * toAlpha, sigma: band.areaSigma * toAlpha }
+    : { value: band.height * toAlpha, sigma: band.heightSigma * toAlpha };
 }

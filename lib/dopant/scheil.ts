@@ -12,17 +12,23 @@ import { levenbergMarquardt } from "../numeric/levenberg_marquardt.ts";
 export interface SegregationPoint {
   /** Solidified fraction g, 0 ≤ g < 1. */
   fraction: number;
+  /** Dopant concentration there. */
   concentration: number;
+  /** Its standard uncertainty. */
   sigma?: number;
 }
 
 /** A Scheil fit with 1σ standard errors. */
 export interface ScheilFit {
+  /** Effective distribution coefficient. */
   k: number;
+  /** Standard error of k. */
   kSigma: number;
   c0: number;
   c0Sigma: number;
+  /** RMS residual of the fit. */
   residualRms: number;
+  /** Number of points. */
   n: number;
 }
 

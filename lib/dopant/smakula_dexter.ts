@@ -20,6 +20,7 @@ export const SMAKULA_K_INTEGRAL: number =
 
 /** Options of {@linkcode smakulaDexter}. */
 export interface SmakulaOptions {
+  /** Band shape (default gaussian). */
   shape?: "gaussian" | "lorentzian";
   /** Include the local-field factor 9/(n²+2)² (default true). */
   localField?: boolean;

@@ -7,6 +7,7 @@
  */
 import { parseSheet } from "../io/parse_sheet.ts";
 import { InputError } from "../io/input_error.ts";
+import { isResponseHeader, readResponseHeader, type ResponseHeader } from "./response_header.ts";
 
 /** One row of the standards table. */
 export interface StandardRow {
@@ -27,6 +28,23 @@ export interface StandardRow {
  * @throws {InputError} Naming the line for a missing or non-numeric concentration or response.
  */
 export function parseStandards(text: string, file: string): StandardRow[] {
+  return parseStandardsTable(text, file).rows;
+}
+
+/** A standards table: its rows and what its response column holds (when it has one). */
+export interface StandardsTable {
+  /** The standards. */
+  rows: StandardRow[];
+  /** The response column's metric, position and unit, from its header. */
+  response?: ResponseHeader & { header: string };
+}
+
+/**
+ * Parses a standards table, with the response metric its header names.
+ *
+ * @throws {InputError} Naming the line for a missing or non-numeric concentration or response.
+ */
+export function parseStandardsTable(text: string, file: string): StandardsTable {
   let records: string[][];
   try {
     records = parseSheet(text);
@@ -47,7 +65,9 @@ export function parseStandards(text: string, file: string): StandardRow[] {
   const cUnit = find(/^unit$/);
   const cSample = find(/^(sample|standard|id|name)$/);
   const cFile = find(/^(file|spectrum|filename)$/);
-  const cResp = find(/^response$/);
+  const cResp = header.findIndex((h) =>
+    isResponseHeader(h) && !/sigma|\bsd\b|err|uncert|±/i.test(h)
+  );
   const cRespSigma = find(/^response[_ ]?(sigma|sd|err)/);
   const cThick = find(/^thickness/);
   if (cConc < 0) {
@@ -74,7 +94,7 @@ export function parseStandards(text: string, file: string): StandardRow[] {
     }
     return v;
   };
-  return rows.map((cells, i) => {
+  const parsed = rows.map((cells, i) => {
     const line = i + 2;
     const row: StandardRow = {
       line,
@@ -93,4 +113,7 @@ export function parseStandards(text: string, file: string): StandardRow[] {
     if (t !== undefined) row.thicknessMm = t;
     return row;
   });
+  if (cResp < 0) return { rows: parsed };
+  const response = { ...readResponseHeader(header[cResp]!), header: header[cResp]! };
+  return { rows: parsed, response };
 }

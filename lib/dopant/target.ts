@@ -11,12 +11,17 @@ import { type Lab, labToLch } from "../cie/spaces.ts";
 
 /** Result of comparing a colour to its target. */
 export interface TargetCheck {
+  /** ΔE00 from the target. */
   dE00: number;
+  /** Whether ΔE00 is within the tolerance. */
   pass: boolean;
+  /** The tolerance, ΔE00. */
   toleranceDE00: number;
   /** Measured minus target. */
   dL: number;
+  /** C*ab of the sample minus the target's. */
   dC: number;
+  /** Signed hue difference, degrees. */
   dh: number;
   /** Plain-language direction of the miss, e.g. "darker, less chroma, hue toward yellow". */
   words: string;

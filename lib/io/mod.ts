@@ -12,3 +12,6 @@ export * from "./read_spectra.ts";
 export * from "./read_jcamp.ts";
 export * from "./read_file.ts";
 export * from "./parse_sheet.ts";
+export * from "./spectrum_columns.ts";
+export * from "./write_jcamp.ts";
+export * from "./write_spectrum_csv.ts";

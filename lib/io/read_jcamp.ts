@@ -67,10 +67,13 @@ export function decodeAsdfLine(
       continue;
     }
     if (/[+\-0-9.]/.test(ch)) {
-      while (
-        j < s.length && /[0-9.eE]/.test(s[j]!) ||
-        (j < s.length && /[+-]/.test(s[j]!) && /[eE]/.test(s[j - 1]!))
-      ) j++;
+      // AFFN: an E is an exponent only when a sign and digits follow (McDonald & Wilks 1988
+      // §5.3); otherwise it is the SQZ pseudo-digit +5 (e: −5) that starts the next value.
+      while (j < s.length && /[0-9.]/.test(s[j]!)) j++;
+      if (/^[eE][+-]\d/.test(s.slice(j, j + 3))) {
+        j += 2;
+        while (j < s.length && /[0-9]/.test(s[j]!)) j++;
+      }
       const v = Number(s.slice(i, j));
       if (!Number.isFinite(v)) {
         throw new InputError(
@@ -172,10 +175,16 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
     const firstX = num("FIRSTX", NaN), lastX = num("LASTX", NaN), npoints = num("NPOINTS", NaN);
     const deltaX = num("DELTAX", (lastX - firstX) / (npoints - 1));
     let ys = values.slice(1);
-    if (
-      prevEndsInDif && prevLastY !== undefined && rows.length > 0 &&
-      Math.abs(ys[0]! - prevLastY) < 1e-9 * Math.max(1, Math.abs(prevLastY))
-    ) {
+    if (prevEndsInDif && prevLastY !== undefined && rows.length > 0) {
+      // DIF form: a line's first ordinate repeats the last one of the line before (Y-check)
+      if (Math.abs(ys[0]! - prevLastY) >= 1e-9 * Math.max(1, Math.abs(prevLastY))) {
+        throw new InputError(
+          "malformed",
+          file,
+          n + 1,
+          `Y-check value ${ys[0]} does not repeat ${prevLastY}, the last value of the line before`,
+        );
+      }
       ys = ys.slice(1);
       const x0 = values[0]! * xFactor;
       ys.forEach((y, k) => {

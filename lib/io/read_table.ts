@@ -5,7 +5,10 @@
  *
  * @module
  */
-import { parse } from "csv-parse/sync";
+// A full specifier: a program outside this repository that imports lib/mod.ts by path resolves it
+// without our deno.json (the import map applies only inside the project).
+// deno-lint-ignore no-import-prefix
+import { parse } from "npm:csv-parse@^5.6.0/sync";
 import { InputError } from "./input_error.ts";
 
 /** A located, numeric table read from a text export. */

@@ -218,7 +218,10 @@ export function spectraFromTable(
         } holds: give --ordinate transmittance|percent|absorbance|alpha`,
       );
     }
-    const { quantity, scale } = toQuantity(kind);
+    const { quantity, scale: unitScale } = toQuantity(kind);
+    // a decadic α (α₁₀ = A/d) is held as the napierian α of the model: α = α₁₀ · ln 10
+    const decadic = quantity === "alpha" && /decadic|alpha\s*10|α\s*10/i.test(header?.[c] ?? "");
+    const scale = decadic ? unitScale * Math.LN10 : unitScale;
     const columnWarnings = [...warnings];
     let clipped = 0;
     const values = Float64Array.from(order, (i) => {

@@ -16,6 +16,7 @@ import {
   hostIndex,
 } from "./refractive_index.ts";
 import { fresnelReflectance, internalFromSlab, slabTransmittance } from "./slab.ts";
+import { NeedsValueError } from "../spectrum/needs_value_error.ts";
 
 /** How surface reflections are treated. */
 export interface ReflectionSettings {
@@ -102,8 +103,9 @@ export function transmittanceForPath(
     internalPerMm = spectrum.values.map((alpha) => -alpha / 10);
   } else {
     if (d === undefined || !(d > 0)) {
-      throw new RangeError(
-        `Cannot separate surfaces from "${spectrum.meta.sample}": the measured thickness is not known (give --thickness)`,
+      throw new NeedsValueError(
+        `Cannot separate surfaces from "${spectrum.meta.sample}": the measured thickness is not known`,
+        "thickness",
       );
     }
     const measured = spectrumAbsorbance(spectrum).map((a) => 10 ** -a);

@@ -70,7 +70,9 @@ export function getHost(name: string): HostEntry {
 
 /** Result of an index look-up, with a warning when outside the fit's range. */
 export interface IndexReading {
+  /** Refractive index. */
   n: number;
+  /** Why the value is uncertain, when it is (e.g. outside the fit's range). */
   warning?: string;
 }
 

@@ -8,10 +8,20 @@ import { escapeHtml as e, jsonForScript, scriptForInline } from "./escape.ts";
 import type { ReportInput, ReportRow } from "./report_data.ts";
 import { REPORT_CSS } from "./report_style.ts";
 import { REPORT_SCRIPT } from "./report_script.ts";
+import { MARKS } from "./marks.ts";
+import { scriptHash } from "./script_hash.ts";
+import { renderStonePage, xyTitle } from "./stone_page.ts";
+import { renderLotFigures } from "./lot_figures.ts";
 
-const CAUTIONS = [
+/** Cautions for a grower's own (internal) report: measurement limits and workshop hazards. */
+const CAUTIONS_INTERNAL = [
   "Colour numbers are measurement aids for comparing and controlling production, not a grading, identification or appraisal of a gemstone.",
   "UV inspection lamps harm eyes and skin; furnaces, flame-fusion burners, flux melts and cleaning acids (HF above all) are dangerous; some specimens are radioactive or toxic when worked. Follow local regulations, your institution's safety rules and licensed practice.",
+];
+
+/** The caution a client's colour statement carries. */
+const CAUTIONS_CLIENT = [
+  "These colour figures are a measurement aid: they describe the measured spectrum under the stated lights and observers. They are not a grading, identification, origin determination or appraisal of the stone.",
 ];
 
 const METHODS = [
@@ -19,13 +29,24 @@ const METHODS = [
   "CIE 1931 2° and CIE 1964 10° observers (CIE 15:2018 Tables 1–2); illuminant A from its definition, D65 and C tabulated, other D-series from the daylight recipe.",
   "CIELAB relative to the white of the illuminant used; the colour change compares each light under its own white (or after CAT16/Bradford adaptation when set). ΔE00 per Sharma, Wu & Dalal, Color Res. Appl. 30, 21 (2005).",
   "Path-length rescaling by Beer–Lambert on the measured absorbance, or with both Fresnel surfaces removed and restored using the host's refractive index (incoherent slab formula).",
-  "Swatches: Bradford adaptation to D65, sRGB (IEC 61966-2-1); colours outside sRGB are marked ◆ and shown with reduced CIELAB chroma at constant L* and hue.",
+  `Swatches: Bradford adaptation to D65, sRGB (IEC 61966-2-1); colours outside sRGB are marked ${MARKS.outOfGamut.symbol} and shown with reduced CIELAB chroma at constant L* and hue.`,
   "Bands: sum of Gaussians in wavenumber (Lorentzian below 150 cm⁻¹ FWHM) plus a baseline with a λ⁻⁴ scatter term, bounded Levenberg–Marquardt, 1σ standard errors from the covariance; assignments are hints from a catalogue whose figures are marked published or from memory.",
   "A marked colour change (tag) means |Δh| at or above the threshold in the settings with C*ab above a floor under both lights — common-practice thresholds, not a standard.",
 ];
 
 /** Summary rows shown in the page; larger batches are summarised in results.csv/json. */
 export const ROW_LIMIT = 5000;
+
+/** Most stones given a printed page of their own (the rest stay in results.json). */
+export const STONE_PAGE_LIMIT = 1000;
+
+/** A CSS string literal for any text: every character but plain letters and digits escaped. */
+export function cssString(text: string): string {
+  return `"${
+    [...text].map((c) => /[A-Za-z0-9 .,_-]/.test(c) ? c : `\\${c.codePointAt(0)!.toString(16)} `)
+      .join("")
+  }"`;
+}
 
 function lch([L, C, h]: [number, number, number]): string {
   return `${L.toFixed(1)} · ${C.toFixed(1)} · ${h.toFixed(0)}°`;
@@ -39,7 +60,9 @@ function row(r: ReportRow, hasDetail: boolean): string {
     : "—";
   return `<tr data-index="${r.index}">
 <td data-value="${e(r.sample)}">${e(r.sample)}${
-    r.outOfGamut ? ' <span title="outside sRGB: swatch chroma-reduced">◆</span>' : ""
+    r.outOfGamut
+      ? ` <span class="mark" title="${e(MARKS.outOfGamut.text)}">${MARKS.outOfGamut.symbol}</span>`
+      : ""
   }</td>
 <td data-value="${r.index}"><span class="swatches"><span style="background:${
     e(r.swatchFrom)
@@ -51,12 +74,35 @@ function row(r: ReportRow, hasDetail: boolean): string {
 <td class="num lamp" data-value="${r.lchTo[0]}">${lch(r.lchTo)}</td>
 <td class="num" data-value="${r.dE00}">${r.dE00.toFixed(2)}</td>
 <td class="num" data-value="${r.dh}">${r.dh.toFixed(1)}°${
-    r.marked ? ' <span class="tag">marked</span>' : ""
+    r.marked
+      ? ` <span class="tag" title="${e(MARKS.marked.text)}">${MARKS.marked.symbol}</span>`
+      : ""
   }</td>
-<td data-value="${r.target ? r.target.dE00 : ""}" title="${e(r.target?.words ?? "")}">${target}</td>
-<td data-value="${e(r.dopant ?? "")}">${e(r.dopant ?? "—")}</td>
+<td data-value="${r.target ? (r.target.pass ? 0 : 1000) + r.target.dE00 : ""}" title="${
+    e(r.target?.words ?? "")
+  }">${target}</td>
+<td data-value="${r.dopant ? parseFloat(r.dopant) : ""}">${e(r.dopant ?? "—")}</td>
 <td>${hasDetail ? `<button class="detail" data-index="${r.index}">details</button>` : ""}</td>
 </tr>`;
+}
+
+function lotHeader(input: ReportInput, count: number, title: string): string {
+  const rep = input.report;
+  const who: [string, string | undefined][] = [
+    ["lab", rep?.lab],
+    ["client", rep?.client],
+    ["operator", rep?.operator],
+    ["date", rep?.date],
+  ];
+  const facts = who.filter(([, v]) => v).map(([k, v]) =>
+    `<div><dt>${e(k)}</dt><dd>${e(v)}</dd></div>`
+  ).join("");
+  return `<header class="lot">
+<p class="kicker">crystint colour report · ${count} sample${count === 1 ? "" : "s"}</p>
+<h1>${e(title)}</h1>
+${facts ? `<dl class="who">${facts}</dl>` : ""}
+${rep?.note ? `<p class="note">${e(rep.note)}</p>` : ""}
+</header>`;
 }
 
 /**
@@ -67,7 +113,7 @@ function row(r: ReportRow, hasDetail: boolean): string {
  */
 export function renderReport(input: ReportInput, chartJs: string): string {
   const first = input.rows[0];
-  const from = first?.from ?? "D65", to = first?.to ?? "A";
+  const from = first?.from ?? "D65", to = first?.to ?? "A", obs = first?.observer ?? "10";
   const settings = Object.entries(input.settingsSummary).map(([k, v]) => `${e(k)}: ${e(v)}`).join(
     " · ",
   );
@@ -79,36 +125,54 @@ export function renderReport(input: ReportInput, chartJs: string): string {
   const { passed, targeted } = totals;
   const count = totals.samples;
   const calibrations = input.calibrations ?? [];
+  const title = input.report?.title || "Colour report";
+  const client = input.report?.audience === "client";
   const data = {
     rows: input.rows.slice(0, ROW_LIMIT),
     details: input.details,
-    locus: input.locus,
+    loci: input.loci,
+    xyObserver: input.xyObserver,
     calibrations,
   };
   const limited = count > Object.keys(input.details).length;
+  const paged = input.rows.filter((r) => r.index in input.details).slice(0, STONE_PAGE_LIMIT);
+  const chartScript = scriptForInline(chartJs);
+  const csp = `default-src 'none'; script-src ${scriptHash(chartScript)} ${
+    scriptHash(REPORT_SCRIPT)
+  }; style-src 'unsafe-inline'; img-src data:`;
+  const pageCss = `@page { size: A4; margin: 16mm 14mm 17mm;
+  @top-left { content: ${cssString(title)}; font: 9pt Georgia, serif; color: #5d6b73; }
+  @top-right { content: ${
+    cssString(input.report?.date ?? "")
+  }; font: 9pt Georgia, serif; color: #5d6b73; }
+  @bottom-right { content: "page " counter(page) " of " counter(pages); font: 9pt sans-serif; color: #5d6b73; } }`;
   return `<!doctype html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; img-src data:">
-<title>crystint colour report — ${count} samples</title>
-<style>${REPORT_CSS}</style>
+<meta http-equiv="Content-Security-Policy" content="${csp}">
+<title>${e(title)} — ${count} samples</title>
+<style>${REPORT_CSS}
+${pageCss}</style>
 </head>
 <body>
-<header class="lot">
-<h1>Colour report · ${count} sample${count === 1 ? "" : "s"}</h1>
+<section class="cover">
+${lotHeader(input, count, title)}
 <div class="meta">crystint ${e(input.version)} · ${settings}${
     targeted ? ` · target met by ${passed} of ${targeted}` : ""
   }${input.errors.length ? ` · ${input.errors.length} file(s) not processed` : ""}</div>
-</header>
 <main>
 <section class="card caution"><strong>Read with care.</strong> ${
-    CAUTIONS.map(e).join(" ")
+    (client ? CAUTIONS_CLIENT : CAUTIONS_INTERNAL).map(e).join(" ")
   }</section>
 
 <h2>Summary</h2>
-<div class="card">
+<div class="card summary-card">
+<div class="tools"><label>Filter <input type="search" id="filter" placeholder="sample, file, pass, fail, dopant…" autocomplete="off"></label>
+<span id="filter-count" aria-live="polite">${Math.min(count, ROW_LIMIT)} shown</span>
+<span class="hint">Click a column heading to sort.</span></div>
+<div class="table-box">
 <table class="summary" id="summary">
 <thead><tr>
 <th data-key="sample">sample</th><th data-key="swatch">${e(from)} | ${
@@ -119,13 +183,19 @@ export function renderReport(input: ReportInput, chartJs: string): string {
   })</th><th data-key="to" class="lamp">L* · C* · h (${e(to)})</th>
 <th data-key="dE00">ΔE00 ${e(from)}→${
     e(to)
-  }</th><th data-key="dh">Δh</th><th data-key="target">target ΔE00</th>
-<th data-key="dopant">dopant</th><th></th>
+  }</th><th data-key="dh">Δh</th><th data-key="target" title="sorts passes first, then by ΔE00">target (pass/fail, ΔE00)</th>
+<th data-key="dopant">dopant</th><th class="noprint"></th>
 </tr></thead>
 <tbody>
 ${input.rows.slice(0, ROW_LIMIT).map((r) => row(r, r.index in input.details)).join("\n")}
 </tbody>
 </table>
+</div>
+<p class="legend">Colours computed for the ${
+    e(obs)
+  }° observer in the change columns. <span class="mark">${MARKS.outOfGamut.symbol}</span> ${
+    e(MARKS.outOfGamut.text)
+  }. <span class="tag">${MARKS.marked.symbol}</span> ${e(MARKS.marked.text)}.</p>
 ${
     count > ROW_LIMIT
       ? `<p>The table shows the first ${ROW_LIMIT} of ${count} samples; results.csv and results.json hold all of them.</p>`
@@ -136,16 +206,25 @@ ${
       ? `<p>Charts are included for the first ${input.detailLimit} samples; results.json holds all of them.</p>`
       : ""
   }
+${
+    paged.length < Object.keys(input.details).length
+      ? `<p class="print-only">Pages are printed for the first ${paged.length} stones.</p>`
+      : ""
+  }
 </div>
 
 <h2>Lot overview</h2>
-<div class="grid2">
-<div class="card"><h3>Chromaticity, CIE 1931 x, y</h3><div class="chart"><canvas id="xy-all" aria-label="chromaticity diagram"></canvas></div></div>
-<div class="card"><h3>a* b* under ${e(from)} → ${
-    e(to)
-  }</h3><div class="chart"><canvas id="ab-all" aria-label="a*b* plane"></canvas></div></div>
+<div class="grid2 screen-only">
+<div class="card"><h3>${
+    e(xyTitle(input.xyObserver))
+  }</h3><div class="chart"><canvas id="xy-all" aria-label="chromaticity diagram"></canvas></div></div>
+<div class="card"><h3>a* b*, ${e(from)} → ${e(to)} (${
+    e(obs)
+  }° observer)</h3><p class="hint">Faint points: every stone. Hover a point or a summary row, or open a stone's details, to see its arrow and name.</p><div class="chart"><canvas id="ab-all" aria-label="a*b* plane"></canvas></div></div>
 </div>
+${renderLotFigures(input, from, to, obs)}
 
+<section class="screen-only" id="detail-box">
 <h2>Sample detail: <span id="detail-name"></span></h2>
 <section id="detail" hidden>
 <div class="grid2">
@@ -153,13 +232,18 @@ ${
 <p><small id="detail-file"></small></p><dl class="facts" id="detail-facts"></dl></div>
 <div class="card"><h3>Transmittance</h3><div class="chart"><canvas id="chart-spectrum"></canvas></div></div>
 <div class="card"><h3>Absorption bands (fit in wavenumber)</h3><div class="chart"><canvas id="chart-bands"></canvas></div>
-<table class="summary"><thead><tr><th>centre</th><th>FWHM</th><th>height</th><th>assignment hint</th></tr></thead><tbody id="bands-table"></tbody></table></div>
-<div class="card"><h3>Chromaticity</h3><div class="chart"><canvas id="chart-xy"></canvas></div></div>
-<div class="card"><h3>a* b*, ${e(from)} → ${
-    e(to)
-  }</h3><div class="chart"><canvas id="chart-ab"></canvas></div></div>
-<div class="card"><h3>Thickness series</h3><div class="chart"><canvas id="chart-series"></canvas></div><p id="series-note"></p></div>
+<div class="table-box"><table class="summary"><thead><tr><th>centre</th><th>FWHM</th><th>height</th><th>assignment hint</th></tr></thead><tbody id="bands-table"></tbody></table></div></div>
+<div class="card"><h3>${
+    e(xyTitle(input.xyObserver))
+  }</h3><div class="chart"><canvas id="chart-xy"></canvas></div></div>
+<div class="card"><h3>a* b*, ${e(from)} → ${e(to)} (${
+    e(obs)
+  }° observer)</h3><div class="chart"><canvas id="chart-ab"></canvas></div></div>
+<div class="card"><h3>Thickness series (${
+    e(from)
+  })</h3><div class="chart"><canvas id="chart-series"></canvas></div><p id="series-note"></p></div>
 </div>
+</section>
 </section>
 
 ${
@@ -193,13 +277,17 @@ ${
   }
 
 <h2>Methods and sources</h2>
-<div class="card"><ul>${METHODS.map((m) => `<li>${e(m)}</li>`).join("")}</ul></div>
+<div class="card methods"><ul>${METHODS.map((m) => `<li>${e(m)}</li>`).join("")}</ul></div>
 </main>
+</section>
+<section class="stones" aria-label="one page per stone">
+${paged.map((r) => renderStonePage(r, input.details[r.index]!, input)).join("\n")}
+</section>
 <footer>Generated by crystint ${
     e(input.version)
   }. Charts drawn with Chart.js (MIT licence), inlined.</footer>
 <script type="application/json" id="crystint-data">${jsonForScript(data)}</script>
-<script>${scriptForInline(chartJs)}</script>
+<script>${chartScript}</script>
 <script>${REPORT_SCRIPT}</script>
 </body>
 </html>

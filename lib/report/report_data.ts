@@ -4,7 +4,9 @@
  *
  * @module
  */
-import type { SampleResult } from "../batch/sample_result.ts";
+import type { SampleResult } from "../analysis/sample_result.ts";
+import type { CalibrationSummary, ReportHeader } from "../analysis/results_document.ts";
+import { roundTo } from "../numeric/round.ts";
 import { spectralLocus } from "../cie/dominant_wavelength.ts";
 
 /** One line of the summary table. */
@@ -52,7 +54,8 @@ export interface ReportDetail {
   series:
     | { pathMm: number[]; L: number[]; C: number[]; srgb: string[]; maxChromaPathMm: number }
     | null;
-  xy: { illuminant: string; observer: string; x: number; y: number }[];
+  /** Chromaticity under each illuminant and observer, with that white's chromaticity. */
+  xy: { illuminant: string; observer: string; x: number; y: number; wx: number; wy: number }[];
   abFrom: [number, number];
   abTo: [number, number];
   colour: {
@@ -64,6 +67,7 @@ export interface ReportDetail {
     C: number;
     h: number;
     srgb: string;
+    outOfGamut: boolean;
     dominantNm: number | null;
     complementary: boolean;
     purity: number | null;
@@ -84,7 +88,12 @@ export interface ReportInput {
   detailLimit: number;
   errors: { file: string; message: string }[];
   manifestNotes: string[];
-  locus: { nm: number[]; x: number[]; y: number[] };
+  /** Spectral loci by observer ("2", "10"), for the chromaticity diagrams. */
+  loci: Record<string, { nm: number[]; x: number[]; y: number[] }>;
+  /** The observer the chromaticity diagrams use: 2° when computed, else the one there is. */
+  xyObserver: string;
+  /** Title, lab, client, date, audience; null for results files written before they existed. */
+  report: ReportHeader | null;
   /** Calibrations used, with their standards and the samples placed on them. */
   calibrations?: ReportCalibration[];
   /**
@@ -95,22 +104,12 @@ export interface ReportInput {
 }
 
 /** A calibration line for the report's calibration plot. */
-export interface ReportCalibration {
-  name: string;
-  unit: string;
-  metric: string;
-  slope: number;
-  intercept: number;
-  r2: number;
-  lod: number;
-  standards: { sample: string; x: number; y: number }[];
+export interface ReportCalibration extends CalibrationSummary {
+  /** The samples placed on the line: their estimate and response. */
   samples: { sample: string; x: number; y: number }[];
 }
 
-const r = (
-  v: number | null,
-  d = 2,
-): number => (typeof v === "number" && Number.isFinite(v) ? Number(v.toFixed(d)) : NaN);
+const r = (v: number | null, d = 2): number => (typeof v === "number" ? roundTo(v, d) : NaN);
 
 const precision = (v: number | null, digits: number) =>
   typeof v === "number" && Number.isFinite(v) ? v.toPrecision(digits) : "?";
@@ -121,7 +120,7 @@ export function reportRow(result: SampleResult, index: number): ReportRow {
   return {
     index,
     sample: result.sample,
-    file: result.file,
+    file: fileLabel(result.file),
     from: c.from,
     to: c.to,
     observer: c.observer,
@@ -157,7 +156,7 @@ export function reportDetail(result: SampleResult): ReportDetail {
   const c = result.change;
   return {
     sample: result.sample,
-    file: result.file,
+    file: fileLabel(result.file),
     plot: result.plot,
     bands: result.bands
       ? {
@@ -186,12 +185,17 @@ export function reportDetail(result: SampleResult): ReportDetail {
         maxChromaPathMm: r(result.series.maxChromaPathMm, 2),
       }
       : null,
-    xy: result.colour.filter((row) => row.observer === "2").map((row) => ({
-      illuminant: row.illuminant,
-      observer: row.observer,
-      x: r(row.x, 5),
-      y: r(row.y, 5),
-    })),
+    xy: result.colour.map((row) => {
+      const sum = row.whiteX + row.whiteY + row.whiteZ;
+      return {
+        illuminant: row.illuminant,
+        observer: row.observer,
+        x: r(row.x, 5),
+        y: r(row.y, 5),
+        wx: r(row.whiteX / sum, 5),
+        wy: r(row.whiteY / sum, 5),
+      };
+    }),
     abFrom: [r(c.labFrom.a), r(c.labFrom.b)],
     abTo: [r(c.labTo.a), r(c.labTo.b)],
     colour: result.colour.map((row) => ({
@@ -203,6 +207,7 @@ export function reportDetail(result: SampleResult): ReportDetail {
       C: r(row.C),
       h: r(row.h, 1),
       srgb: row.srgb,
+      outOfGamut: row.srgbOutOfGamut,
       dominantNm: row.dominantNm === null ? null : r(row.dominantNm, 1),
       complementary: row.complementary,
       purity: row.purity === null ? null : r(row.purity, 3),
@@ -214,9 +219,17 @@ export function reportDetail(result: SampleResult): ReportDetail {
   };
 }
 
-/** The CIE 1931 2° spectral locus, 380–700 nm at 1 nm, for the chromaticity diagram. */
-export function locusForReport(): ReportInput["locus"] {
-  const l = spectralLocus("2");
+/**
+ * The file as the report shows it: its name alone, so a page sent out carries no folder
+ * layout of the machine that made it.
+ */
+export function fileLabel(path: string): string {
+  return path.split(/[\\/]/).pop() ?? path;
+}
+
+/** A spectral locus (CIE 15:2018, 1931 2° or 1964 10°), 380–700 nm, for the chromaticity diagram. */
+export function locusForReport(observer = "2"): { nm: number[]; x: number[]; y: number[] } {
+  const l = spectralLocus(observer);
   const keep = l.nm.map((nm, i) => (nm >= 380 && nm <= 700 ? i : -1)).filter((i) => i >= 0);
   return {
     nm: keep.map((i) => l.nm[i]!),

@@ -33,51 +33,86 @@ export const REPORT_SCRIPT = `
         ctx.lineTo(x2 - h * Math.cos(ang - 0.4), y2 - h * Math.sin(ang - 0.4));
         ctx.lineTo(x2 - h * Math.cos(ang + 0.4), y2 - h * Math.sin(ang + 0.4));
         ctx.closePath(); ctx.fill();
+        if (p[5]) { ctx.font = "600 12px sans-serif"; ctx.fillText(String(p[5]), x2 + 6, y2 - 6); }
       });
       ctx.restore();
     }
   });
 
+  var OBS = data.xyObserver || "2";
   function locusDataset() {
-    var pts = data.locus.x.map(function (x, i) { return { x: x, y: data.locus.y[i] }; });
+    var locus = data.loci[OBS];
+    if (!locus) return null;
+    var pts = locus.x.map(function (x, i) { return { x: x, y: locus.y[i] }; });
     pts.push(pts[0]);
-    return { label: "spectral locus (CIE 1931 2°)", data: pts, showLine: true, pointRadius: 0,
+    return { label: "spectral locus (" + OBS + "° observer)", data: pts, showLine: true, pointRadius: 0,
       borderColor: INK, borderWidth: 1.2, fill: false };
   }
-  var WHITES = { D65: [0.31272, 0.32903], A: [0.44757, 0.40745] };
+  function lightColour(ill) { return ill === FROM ? DAY : ill === TO ? LAMP : "#7b5ea7"; }
+  var FIRST = data.rows[0], FROM = FIRST ? FIRST.from : "D65", TO = FIRST ? FIRST.to : "A";
+  // points: {illuminant, observer, x, y, wx, wy, sample?}; only the chosen observer is drawn
   function xyChart(canvas, points) {
-    var byIll = {};
-    points.forEach(function (p) { (byIll[p.illuminant] = byIll[p.illuminant] || []).push({ x: p.x, y: p.y }); });
-    var sets = [locusDataset()];
+    var byIll = {}, whites = {};
+    points.forEach(function (p) {
+      if (p.observer !== OBS) return;
+      (byIll[p.illuminant] = byIll[p.illuminant] || []).push({ x: p.x, y: p.y, name: p.sample || "" });
+      whites[p.illuminant] = [p.wx, p.wy];
+    });
+    var sets = [], locus = locusDataset();
+    if (locus) sets.push(locus);
     Object.keys(byIll).forEach(function (ill) {
-      sets.push({ label: "samples under " + ill, data: byIll[ill], pointRadius: 3.5,
-        backgroundColor: ill === "A" ? LAMP : ill === "D65" ? DAY : "#7b5ea7" });
-      if (WHITES[ill]) sets.push({ label: ill + " white", data: [{ x: WHITES[ill][0], y: WHITES[ill][1] }],
-        pointStyle: "crossRot", pointRadius: 7, borderColor: ill === "A" ? LAMP : DAY, borderWidth: 2 });
+      sets.push({ label: "under " + ill, data: byIll[ill], pointRadius: 3.5, backgroundColor: lightColour(ill) });
+      sets.push({ label: ill + " white", data: [{ x: whites[ill][0], y: whites[ill][1] }],
+        pointStyle: "crossRot", pointRadius: 7, borderColor: lightColour(ill), borderWidth: 2 });
     });
     return new Chart(canvas, { type: "scatter", data: { datasets: sets },
-      options: { scales: { x: { min: 0, max: 0.8, title: { display: true, text: "x" } },
-        y: { min: 0, max: 0.9, title: { display: true, text: "y" } } },
-        plugins: { legend: { position: "bottom" } } } });
+      options: { scales: { x: { min: 0, max: 0.8, title: { display: true, text: OBS === "10" ? "x10" : "x" } },
+        y: { min: 0, max: 0.9, title: { display: true, text: OBS === "10" ? "y10" : "y" } } },
+        plugins: { legend: { position: "bottom" }, tooltip: { callbacks: { label: function (c) {
+          var r = c.raw || {};
+          return (r.name ? r.name + ": " : "") + c.dataset.label + " x " + Number(r.x).toFixed(4) + ", y " + Number(r.y).toFixed(4);
+        } } } } } });
   }
-  function abChart(canvas, pairs, from, to) {
+  function limitFor(pairs) {
     var lim = 10;
     pairs.forEach(function (p) { lim = Math.max(lim, Math.abs(p[0]), Math.abs(p[1]), Math.abs(p[2]), Math.abs(p[3])); });
-    lim = Math.ceil(lim / 10) * 10;
-    return new Chart(canvas, { type: "scatter",
+    return Math.ceil(lim / 10) * 10;
+  }
+  // pairs: [a1, b1, a2, b2, name]; lot: draw arrows only for highlighted pairs, the rest as faint points
+  function abChart(canvas, pairs, from, to, lot) {
+    var lim = limitFor(pairs), faint = lot ? "55" : "";
+    var chart = new Chart(canvas, { type: "scatter",
       data: { datasets: [
-        { label: "under " + from, data: pairs.map(function (p) { return { x: p[0], y: p[1] }; }), backgroundColor: DAY, pointRadius: 3.5 },
-        { label: "under " + to, data: pairs.map(function (p) { return { x: p[2], y: p[3] }; }), backgroundColor: LAMP, pointRadius: 3.5 }
+        { label: "under " + from, data: pairs.map(function (p) { return { x: p[0], y: p[1], name: p[4] }; }), backgroundColor: DAY + faint, pointRadius: lot ? 3 : 3.5 },
+        { label: "under " + to, data: pairs.map(function (p) { return { x: p[2], y: p[3], name: p[4] }; }), backgroundColor: LAMP + faint, pointRadius: lot ? 3 : 3.5 }
       ] },
       options: { scales: { x: { min: -lim, max: lim, title: { display: true, text: "a*" }, grid: { color: RULE } },
         y: { min: -lim, max: lim, title: { display: true, text: "b*" }, grid: { color: RULE } } },
-        plugins: { legend: { position: "bottom" }, abArrows: { pairs: pairs.map(function (p) { return p.concat([INK]); }) } } } });
+        onHover: lot ? function (ev, els) { setHover(els.length ? els[0].index : null); } : undefined,
+        plugins: { legend: { position: "bottom" }, tooltip: { callbacks: { label: function (c) {
+          var r = c.raw || {};
+          return (r.name ? r.name + ": " : "") + c.dataset.label + " a* " + Number(r.x).toFixed(1) + ", b* " + Number(r.y).toFixed(1);
+        } } }, abArrows: { pairs: lot ? [] : pairs.map(function (p) { return p.slice(0, 4).concat([INK]); }) } } } });
+    chart.$pairs = pairs;
+    return chart;
   }
+  var lotAb = null, selected = null, hovered = null;
+  function redrawLot() {
+    if (!lotAb) return;
+    var show = [];
+    if (selected !== null) show.push([selected, INK]);
+    if (hovered !== null && hovered !== selected) show.push([hovered, LAMP]);
+    lotAb.options.plugins.abArrows.pairs = show.map(function (s) {
+      var p = lotAb.$pairs[s[0]]; return p ? p.slice(0, 4).concat([s[1], p[4]]) : null;
+    }).filter(Boolean);
+    lotAb.update("none");
+  }
+  function setHover(i) { if (i !== hovered) { hovered = i; redrawLot(); } }
 
   // Summary table sorting.
   var table = document.getElementById("summary");
   if (table) {
-    table.querySelectorAll("th[data-key]").forEach(function (th, col) {
+    table.querySelectorAll("th[data-key]").forEach(function (th) {
       th.addEventListener("click", function () {
         var dir = th.getAttribute("aria-sort") === "ascending" ? "descending" : "ascending";
         table.querySelectorAll("th").forEach(function (o) { o.removeAttribute("aria-sort"); });
@@ -87,8 +122,9 @@ export const REPORT_SCRIPT = `
         var idx = Array.prototype.indexOf.call(th.parentNode.children, th);
         rows.sort(function (a, b) {
           var va = a.cells[idx].getAttribute("data-value"), vb = b.cells[idx].getAttribute("data-value");
-          var na = parseFloat(va), nb = parseFloat(vb), r;
-          r = (!isNaN(na) && !isNaN(nb)) ? na - nb : String(va).localeCompare(String(vb));
+          if (va === "" || vb === "") return va === vb ? 0 : va === "" ? 1 : -1;
+          var na = Number(va), nb = Number(vb), r;
+          r = (!isNaN(na) && !isNaN(nb)) ? na - nb : String(va).localeCompare(String(vb), undefined, { numeric: true });
           return dir === "ascending" ? r : -r;
         });
         rows.forEach(function (r) { body.appendChild(r); });
@@ -96,15 +132,40 @@ export const REPORT_SCRIPT = `
     });
   }
 
+  // Filter: rows whose text holds every word typed.
+  var filter = document.getElementById("filter");
+  if (filter && table) {
+    filter.addEventListener("input", function () {
+      var words = filter.value.toLowerCase().split(/\s+/).filter(Boolean), shown = 0;
+      Array.prototype.forEach.call(table.tBodies[0].rows, function (tr) {
+        var text = tr.textContent.toLowerCase();
+        var ok = words.every(function (w) { return text.indexOf(w) >= 0; });
+        tr.hidden = !ok;
+        if (ok) shown++;
+      });
+      var c = document.getElementById("filter-count");
+      if (c) c.textContent = shown + " of " + table.tBodies[0].rows.length + " shown";
+    });
+  }
+
   // Lot overview.
-  var allXy = [], allPairs = [];
+  var allXy = [], allPairs = [], pairIndex = {};
   data.rows.forEach(function (row) {
     var d = data.details[row.index];
-    if (d) { allXy = allXy.concat(d.xy); allPairs.push([d.abFrom[0], d.abFrom[1], d.abTo[0], d.abTo[1]]); }
+    if (!d) return;
+    d.xy.forEach(function (p) { allXy.push({ illuminant: p.illuminant, observer: p.observer, x: p.x, y: p.y, wx: p.wx, wy: p.wy, sample: d.sample }); });
+    pairIndex[row.index] = allPairs.length;
+    allPairs.push([d.abFrom[0], d.abFrom[1], d.abTo[0], d.abTo[1], d.sample]);
   });
-  var first = data.rows[0];
   if (document.getElementById("xy-all")) xyChart(document.getElementById("xy-all"), allXy);
-  if (document.getElementById("ab-all")) abChart(document.getElementById("ab-all"), allPairs, first ? first.from : "D65", first ? first.to : "A");
+  if (document.getElementById("ab-all")) lotAb = abChart(document.getElementById("ab-all"), allPairs, FROM, TO, true);
+  if (table) {
+    table.tBodies[0].addEventListener("mouseover", function (ev) {
+      var tr = ev.target.closest ? ev.target.closest("tr") : null;
+      if (tr) { var i = pairIndex[tr.getAttribute("data-index")]; setHover(i === undefined ? null : i); }
+    });
+    table.tBodies[0].addEventListener("mouseleave", function () { setHover(null); });
+  }
 
   // Calibration plots: standards, the fitted line, and the samples placed on it.
   (data.calibrations || []).forEach(function (c, i) {
@@ -126,6 +187,8 @@ export const REPORT_SCRIPT = `
   function text(id, value) { var el = document.getElementById(id); if (el) el.textContent = value; }
   function showDetail(index) {
     var d = data.details[index], row = data.rows.filter(function (r) { return r.index === index; })[0];
+    selected = pairIndex[index] === undefined ? null : pairIndex[index];
+    redrawLot();
     var box = document.getElementById("detail");
     if (!d || !row || !box) return;
     charts.forEach(function (c) { c.destroy(); }); charts = [];
@@ -210,6 +273,6 @@ export const REPORT_SCRIPT = `
     b.addEventListener("click", function () { showDetail(Number(b.getAttribute("data-index"))); });
   });
   window.crystintShowDetail = showDetail;
-  if (first && data.details[first.index]) showDetail(first.index);
+  if (FIRST && data.details[FIRST.index]) showDetail(FIRST.index);
 })();
 `;

@@ -34,3 +34,8 @@ export function nmToWavenumber(nm: number): number {
 export function nmToEv(nm: number): number {
   return HC_EV_NM / nm;
 }
+
+/** Wavelength in nm from wavenumber in cm⁻¹. */
+export function wavenumberToNm(cm1: number): number {
+  return 1e7 / cm1;
+}

@@ -5,6 +5,7 @@
  * @module
  */
 import type { Spectrum } from "./spectrum.ts";
+import { NeedsValueError } from "./needs_value_error.ts";
 
 /** Absorbance assigned to T ≤ 0 (a reading at or below the dark level). */
 export const MAX_ABSORBANCE = 10;
@@ -79,8 +80,9 @@ export function transmittanceAtPath(
   }
   const d = spectrum.thicknessMm;
   if (d === undefined || !(d > 0)) {
-    throw new RangeError(
-      `Cannot rescale "${spectrum.meta.sample}" to ${pathMm} mm: the measured thickness is not known (give --thickness)`,
+    throw new NeedsValueError(
+      `Cannot rescale "${spectrum.meta.sample}" to ${pathMm} mm: the measured thickness is not known`,
+      "thickness",
     );
   }
   const scale = pathMm / d;

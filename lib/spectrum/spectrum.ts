@@ -28,10 +28,13 @@ export interface Spectrum {
   wavelengthNm: Float64Array<ArrayBuffer>;
   /** Ordinate values in the unit named by `quantity` (T as a fraction 0..1, A in log10). */
   values: Float64Array<ArrayBuffer>;
+  /** What the values are. */
   quantity: Quantity;
   /** Thickness of the measured slab in mm, when known. */
   thicknessMm?: number;
+  /** Polarisation of the measurement, when known. */
   polarisation?: Polarisation;
+  /** Where it came from. */
   meta: SpectrumMeta;
 }
 

@@ -76,9 +76,24 @@ async function openReport(htmlPath: string, screenshot: string) {
       );
       return values.every((v, i) => i === 0 || v >= values[i - 1]!);
     });
+    // sorting by dopant: numbers ascending, samples without an estimate last
+    const dopant = await page.evaluate(() => {
+      (document.querySelector('#summary th[data-key="dopant"]') as HTMLElement).click();
+      const values = [...document.querySelectorAll("#summary tbody tr")].map((tr) =>
+        (tr as HTMLTableRowElement).cells[8]!.getAttribute("data-value")!
+      );
+      const firstEmpty = values.indexOf("");
+      const numbers = values.filter((v) => v !== "").map(Number);
+      return {
+        count: numbers.length,
+        ascending: numbers.every((v, i) => i === 0 || v >= numbers[i - 1]!),
+        emptiesLast: firstEmpty === -1 || values.slice(firstEmpty).every((v) => v === ""),
+      };
+    });
+    const caution = await page.$eval(".caution", (el) => el.textContent!);
     await Deno.mkdir(`${ROOT}test/output`, { recursive: true });
     await page.screenshot({ path: screenshot, fullPage: false });
-    return { ...facts, sorted, problems };
+    return { ...facts, sorted, dopant, caution, problems };
   } finally {
     await browser.close();
     await Deno.remove(profile, { recursive: true }).catch(() => {});
@@ -119,6 +134,10 @@ describe(
       expect(seen.rows).toBeGreaterThanOrEqual(20);
       expect(seen.canvases.length).toBeGreaterThanOrEqual(6);
       expect(seen.blank).toEqual([]);
+      expect(seen.dopant.count).toBeGreaterThan(0); // the demo places stones on its calibration
+      expect(seen.dopant.ascending).toBe(true);
+      expect(seen.dopant.emptiesLast).toBe(true);
+      expect(seen.caution).toContain("HF"); // internal audience (the default): workshop hazards
     });
 
     it("a sample name carrying HTML and script is shown as text and nothing runs", async () => {

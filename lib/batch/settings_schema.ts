@@ -1,40 +1,27 @@
 /**
- * Batch settings: defaults, a settings file in JSON or YAML, validation with clear messages.
+ * Batch settings: the schema (types, defaults, bounds) and its validation with clear messages.
  *
  * @module
  */
-import { parse as parseYaml } from "yaml";
 import { getIlluminant } from "../cie/illuminants.ts";
 import { getObserver } from "../cie/observers.ts";
 import { getHost, parseSellmeier } from "../optics/refractive_index.ts";
 import { axisFromText, ordinateFromText } from "../io/header_units.ts";
+import type {
+  ChangeSetting,
+  SeriesSetting,
+  TargetColor,
+  TargetSetting,
+} from "../analysis/sample_settings.ts";
+import type { ReportHeader } from "../analysis/results_document.ts";
 
-/** A target colour under one illuminant. */
-export interface TargetColour {
-  L: number;
-  a: number;
-  b: number;
-  illuminant: string;
-}
-
-/** A target colour with its tolerance: under one illuminant, or several (e.g. D65 and A). */
-export interface TargetSetting extends TargetColour {
-  observer: string;
-  /** Pass when ΔE00 ≤ this under every illuminant (common practice, not a standard). */
-  toleranceDE00: number;
-  /** The same target under further illuminants. */
-  also: TargetColour[];
-  /** A reference spectrum the target colours are taken from (resolved before the run). */
-  spectrum?: string;
-  /** Path for the reference spectrum's colour, mm (default: as measured). */
-  spectrumPathMm?: number;
-}
+export type { TargetColor, TargetSetting };
 
 /** Everything a batch run is configured by. */
 export interface BatchSettings {
   illuminants: string[];
   observers: string[];
-  change: { from: string; to: string; observer: string; adapt: "none" | "cat16" | "bradford" };
+  change: ChangeSetting;
   /** Default path length for the finished stone, mm (a manifest column overrides it). */
   pathMm?: number;
   /** Default measured thickness, mm, when neither file nor manifest says. */
@@ -51,7 +38,7 @@ export interface BatchSettings {
   /** Named targets the manifest's `target` column may refer to. */
   targets: Record<string, TargetSetting>;
   /** Thickness series range; `targetL` asks for the path that reaches that L*. */
-  series: { fromMm: number; toMm: number; steps: number; targetL?: number };
+  series: SeriesSetting;
   /** Hue difference (degrees) from which a D65→A change is called marked (common practice). */
   changeHueThresholdDeg: number;
   /** Smallest C*ab (under both lights) for a change to be called marked (common practice). */
@@ -60,6 +47,8 @@ export interface BatchSettings {
   calibration?: string;
   /** Named calibration files the manifest's `calibration` column may refer to. */
   calibrations: Record<string, string>;
+  /** Report title, lab, client, operator, note, date and audience; date defaults to the run's. */
+  report?: Partial<ReportHeader>;
 }
 
 /** A problem with the settings file (a usage error, exit code 1). */
@@ -75,7 +64,7 @@ export function defaultSettings(): BatchSettings {
   return {
     illuminants: ["D65", "A"],
     observers: ["2", "10"],
-    change: { from: "D65", to: "A", observer: "10", adapt: "none" },
+    change: { from: "D65", to: "A", observer: "2", adapt: "none" },
     reflection: "none",
     targets: {},
     calibrations: {},
@@ -105,12 +94,12 @@ function target(v: unknown, where: string): TargetSetting {
     throw new SettingsError(`Setting ${where} must be an object with L, a, b`);
   }
   const o = v as Record<string, unknown>;
-  const observer = String(o.observer ?? "10");
+  const observer = String(o.observer ?? "2");
   const toleranceDE00 = o.toleranceDE00 === undefined
     ? 2
     : num(o.toleranceDE00, `${where}.toleranceDE00`, true);
   check(() => getObserver(observer), `${where}.observer`);
-  const lab = (x: unknown, at: string, illuminant: string): TargetColour => {
+  const lab = (x: unknown, at: string, illuminant: string): TargetColor => {
     check(() => getIlluminant(illuminant), `${at}`);
     if (Array.isArray(x) && x.length === 3) {
       return {
@@ -123,7 +112,7 @@ function target(v: unknown, where: string): TargetSetting {
     const r = (x ?? {}) as Record<string, unknown>;
     return { L: num(r.L, `${at}.L`), a: num(r.a, `${at}.a`), b: num(r.b, `${at}.b`), illuminant };
   };
-  let colours: TargetColour[];
+  let colours: TargetColor[];
   const t: Partial<TargetSetting> = {};
   if (o.spectrum !== undefined) {
     const ills = o.illuminants === undefined
@@ -162,6 +151,50 @@ function check(f: () => unknown, where: string) {
   }
 }
 
+/** Longest title, lab, client or operator text (the note may be longer). */
+const REPORT_TEXT_LIMIT = 200;
+const REPORT_NOTE_LIMIT = 2000;
+
+function reportSettings(v: unknown): Partial<ReportHeader> {
+  if (!v || typeof v !== "object" || Array.isArray(v)) {
+    throw new SettingsError("Setting report must be a mapping (title, lab, client, …)");
+  }
+  const o = v as Record<string, unknown>;
+  const out: Partial<ReportHeader> = {};
+  for (const k of Object.keys(o)) {
+    if (!["title", "lab", "client", "operator", "note", "date", "audience"].includes(k)) {
+      throw new SettingsError(`Unknown setting "report.${k}"`);
+    }
+  }
+  for (const k of ["title", "lab", "client", "operator", "note"] as const) {
+    const x = o[k];
+    if (x === undefined || x === null) continue;
+    if (typeof x !== "string" && typeof x !== "number") {
+      throw new SettingsError(`Setting report.${k} must be text`);
+    }
+    const text = String(x);
+    const limit = k === "note" ? REPORT_NOTE_LIMIT : REPORT_TEXT_LIMIT;
+    if (text.length > limit) {
+      throw new SettingsError(`Setting report.${k} must be at most ${limit} characters`);
+    }
+    out[k] = text;
+  }
+  if (o.date !== undefined && o.date !== null) {
+    const d = o.date instanceof Date ? o.date.toISOString().slice(0, 10) : o.date;
+    if (typeof d !== "string" || d.length === 0 || d.length > REPORT_TEXT_LIMIT) {
+      throw new SettingsError("Setting report.date must be a date as text, e.g. 2026-12-02");
+    }
+    out.date = d;
+  }
+  if (o.audience !== undefined) {
+    if (o.audience !== "internal" && o.audience !== "client") {
+      throw new SettingsError("Setting report.audience must be internal or client");
+    }
+    out.audience = o.audience;
+  }
+  return out;
+}
+
 /**
  * Validates a settings object (from JSON or YAML) on top of the defaults.
  *
@@ -193,6 +226,7 @@ export function resolveSettings(raw: unknown): BatchSettings {
     "calibrations",
     "changeMinChroma",
     "sellmeier",
+    "report",
   ]);
   for (const k of Object.keys(o)) {
     if (!known.has(k)) throw new SettingsError(`Unknown setting "${k}"`);
@@ -281,47 +315,9 @@ export function resolveSettings(raw: unknown): BatchSettings {
       s.calibrations[name] = String(path);
     }
   }
+  if (o.report !== undefined) s.report = reportSettings(o.report);
   if (o.changeHueThresholdDeg !== undefined) {
     s.changeHueThresholdDeg = num(o.changeHueThresholdDeg, "changeHueThresholdDeg", true);
   }
   return s;
-}
-
-/**
- * Reads a settings file (`.json`, `.yaml` or `.yml`).
- *
- * @throws {SettingsError} When the file cannot be read or parsed, or a value is wrong.
- */
-export async function readSettingsFile(path: string): Promise<BatchSettings> {
-  let text: string;
-  try {
-    text = await Deno.readTextFile(path);
-  } catch (e) {
-    throw new SettingsError(`Cannot read settings file ${path}: ${(e as Error).message}`);
-  }
-  let raw: unknown;
-  try {
-    raw = /\.json$/i.test(path) ? JSON.parse(text) : parseYaml(text);
-  } catch (e) {
-    throw new SettingsError(`Cannot parse settings file ${path}: ${(e as Error).message}`);
-  }
-  let settings: BatchSettings;
-  try {
-    settings = resolveSettings(raw);
-  } catch (e) {
-    throw new SettingsError(`${path}: ${(e as Error).message}`);
-  }
-  // calibration paths are relative to the settings file
-  const dir = path.replace(/[^/\\]*$/, "");
-  const rel = (p: string) => (/^([a-zA-Z]:)?[\\/]/.test(p) ? p : `${dir}${p}`);
-  if (settings.calibration) settings.calibration = rel(settings.calibration);
-  for (
-    const t of [...(settings.target ? [settings.target] : []), ...Object.values(settings.targets)]
-  ) {
-    if (t.spectrum) t.spectrum = rel(t.spectrum);
-  }
-  for (const k of Object.keys(settings.calibrations)) {
-    settings.calibrations[k] = rel(settings.calibrations[k]!);
-  }
-  return settings;
 }

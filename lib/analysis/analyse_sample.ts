@@ -1,0 +1,84 @@
+/**
+ * The analysis of one sample, in named steps: optics → colour rows → change → series →
+ * target → bands → dopant → uncertainty (when asked for). Pure: no file system, so it runs in a worker or a notebook.
+ *
+ * @module
+ */
+import type { Spectrum } from "../spectrum/spectrum.ts";
+import { readSpectraFromBytes } from "../io/read_spectra.ts";
+import type { SampleSettings } from "./sample_settings.ts";
+import type { SampleResult } from "./sample_result.ts";
+import { colorRowsFor, pathTransmittance } from "./color_step.ts";
+import { changeStep } from "./change_step.ts";
+import { seriesStep } from "./series_step.ts";
+import { targetStep } from "./target_step.ts";
+import { bandsStep } from "./bands_step.ts";
+import { dopantStep } from "./dopant_step.ts";
+import { thinTransmittance } from "./chart_curves.ts";
+import { uncertaintyStep } from "./uncertainty_step.ts";
+
+/** The host's name from the reflection settings, when one is set. */
+function hostName(s: SampleSettings): string | undefined {
+  const h = s.reflection.host;
+  return typeof h === "string" ? h : h?.name;
+}
+
+/**
+ * Analyses one measured spectrum.
+ *
+ * @param measured The spectrum as read.
+ * @param file The file it came from (carried into the result).
+ * @param s The sample's settings.
+ * @param single Whether the file holds only this spectrum (then the sheet's name applies).
+ */
+export function analyseSample(
+  measured: Spectrum,
+  file: string,
+  s: SampleSettings,
+  single = true,
+): SampleResult {
+  const spectrum = measured.thicknessMm === undefined && s.fallbackThicknessMm !== undefined
+    ? { ...measured, thicknessMm: s.fallbackThicknessMm }
+    : measured;
+  const warnings = [...(spectrum.meta.warnings ?? [])];
+  const { t, warnings: opticsWarnings } = pathTransmittance(spectrum, s);
+  warnings.push(...opticsWarnings);
+  const colour = colorRowsFor(spectrum, t, s.illuminants, s.observers, s.pathMm);
+  const change = changeStep(spectrum, t, colour, s);
+  const series = seriesStep(spectrum, s, warnings);
+  const target = targetStep(spectrum, t, colour, s);
+  const host = hostName(s);
+  const bands = bandsStep(spectrum, host, warnings);
+  const dopant = dopantStep(spectrum, bands.fit, s, warnings);
+  const uncertainty = uncertaintyStep(spectrum, s, change, target, warnings);
+  return {
+    sample: single && s.sampleName ? s.sampleName : spectrum.meta.sample,
+    file,
+    quantity: spectrum.quantity,
+    thicknessMm: spectrum.thicknessMm ?? null,
+    pathMm: s.pathMm ?? spectrum.thicknessMm ?? null,
+    polarisation: spectrum.polarisation ?? s.polarisation ?? null,
+    host: host ?? null,
+    notes: s.notes ?? "",
+    extra: s.extra,
+    warnings,
+    colour,
+    change,
+    series,
+    target,
+    plot: thinTransmittance(spectrum.wavelengthNm, t),
+    dopant,
+    bands: bands.result,
+    uncertainty,
+  };
+}
+
+/**
+ * Reads the spectra in one file's bytes and analyses each.
+ *
+ * @throws {InputError} For unreadable content; {RangeError} for settings that do not fit it.
+ */
+export function analyseFile(bytes: Uint8Array, file: string, s: SampleSettings): SampleResult[] {
+  const spectra = readSpectraFromBytes(bytes, file, s.read);
+  return spectra.map((spectrum) => analyseSample(spectrum, file, s, spectra.length === 1));
+}

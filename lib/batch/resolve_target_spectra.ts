@@ -1,0 +1,38 @@
+/**
+ * Targets given as a reference spectrum: reads it and fills in its colours.
+ *
+ * @module
+ */
+import { readSpectrumFile } from "../io/read_file.ts";
+import { transmittanceForPath } from "../optics/path_transmittance.ts";
+import { spectrumColour } from "../cie/spectrum_colour.ts";
+import { type BatchSettings, SettingsError } from "./settings_schema.ts";
+
+/**
+ * Fills in the target colours of targets given as a reference spectrum (in place).
+ *
+ * @throws {SettingsError} When the reference spectrum cannot be read.
+ */
+export async function resolveTargetSpectra(settings: BatchSettings): Promise<void> {
+  const all = [...(settings.target ? [settings.target] : []), ...Object.values(settings.targets)];
+  for (const t of all) {
+    if (!t.spectrum) continue;
+    let spectrum;
+    try {
+      [spectrum] = await readSpectrumFile(t.spectrum);
+    } catch (e) {
+      throw new SettingsError(
+        `Cannot read the target's reference spectrum: ${(e as Error).message}`,
+      );
+    }
+    const values = transmittanceForPath(spectrum!, t.spectrumPathMm).values;
+    const rows = spectrumColour(spectrum!, {
+      illuminants: [t.illuminant, ...t.also.map((c) => c.illuminant)],
+      observers: [t.observer],
+      transmittance: values,
+    });
+    [t, ...t.also].forEach((c, i) =>
+      Object.assign(c, { L: rows[i]!.L, a: rows[i]!.a, b: rows[i]!.b })
+    );
+  }
+}

@@ -1,0 +1,220 @@
+/**
+ * One printed page per stone: name, a swatch under each light, the numbers per illuminant and
+ * observer, the change, the target verdict, the dopant estimate, and four static charts
+ * (transmittance, band fit, chromaticity point, a*b* shift). Pure HTML + SVG, no script.
+ *
+ * @module
+ */
+import { escapeHtml as e } from "./escape.ts";
+import type { ReportDetail, ReportInput, ReportRow } from "./report_data.ts";
+import { paddedRange, svgChart } from "./svg_chart.ts";
+import { MARKS } from "./marks.ts";
+
+/** Colours of the two lights and the ink (the report's own palette). */
+export const PALETTE = { day: "#2c6e73", lamp: "#b5651d", ink: "#1e2a32", other: "#7b5ea7" };
+
+/** The colour a light is drawn in: the first change light teal, the second amber. */
+export function lightColor(illuminant: string, from: string, to: string): string {
+  return illuminant === from ? PALETTE.day : illuminant === to ? PALETTE.lamp : PALETTE.other;
+}
+
+const n = (v: number | null | undefined, d: number) =>
+  typeof v === "number" && Number.isFinite(v) ? v.toFixed(d) : "—";
+
+/** Title of a chromaticity chart for an observer. */
+export function xyTitle(observer: string): string {
+  return observer === "10"
+    ? "Chromaticity x₁₀, y₁₀ (CIE 1964 10° observer)"
+    : `Chromaticity x, y (CIE 1931 ${observer}° observer)`;
+}
+
+function swatches(d: ReportDetail): string {
+  return d.colour.map((c) =>
+    `<figure class="light"><span class="swatch" style="background:${e(c.srgb)}"></span>` +
+    `<figcaption>${e(c.illuminant)} · ${e(c.observer)}°${
+      c.outOfGamut
+        ? ` <span class="mark" title="${
+          e(MARKS.outOfGamut.text)
+        }">${MARKS.outOfGamut.symbol}</span>`
+        : ""
+    }</figcaption></figure>`
+  ).join("") + (d.colour.some((c) =>
+      c.outOfGamut
+    )
+    ? `<p class="legend">${MARKS.outOfGamut.symbol} ${e(MARKS.outOfGamut.text)}</p>`
+    : "");
+}
+
+function numbers(d: ReportDetail): string {
+  return `<table class="numbers"><thead><tr><th>light</th><th>observer</th><th>L*</th><th>C*ab</th><th>h (°)</th><th>a*</th><th>b*</th><th>λd / λc (nm)</th></tr></thead><tbody>${
+    d.colour.map((c) =>
+      `<tr><td>${e(c.illuminant)}</td><td>${e(c.observer)}°</td><td>${n(c.L, 2)}</td><td>${
+        n(c.C, 2)
+      }</td><td>${n(c.h, 1)}</td><td>${n(c.a, 2)}</td><td>${n(c.b, 2)}</td><td>${
+        c.dominantNm === null ? "—" : `${c.complementary ? "c " : ""}${n(c.dominantNm, 1)}`
+      }</td></tr>`
+    ).join("")
+  }</tbody></table>`;
+}
+
+function facts(row: ReportRow, d: ReportDetail): string {
+  const items: [string, string][] = [];
+  items.push([
+    `change ${row.from} → ${row.to} (${row.observer}°)`,
+    `ΔE00 ${n(row.dE00, 2)}, Δh ${n(row.dh, 1)}°${row.marked ? ` — ${MARKS.marked.symbol}` : ""}`,
+  ]);
+  if (row.target) {
+    items.push([
+      row.target.name === "target" ? "target" : `target ${row.target.name}`,
+      `${row.target.pass ? "pass" : "fail"} (ΔE00 ${n(row.target.dE00, 2)}; ${row.target.words})`,
+    ]);
+  }
+  if (row.dopant) items.push(["dopant estimate (± 1σ)", row.dopant]);
+  items.push(["path for colour", row.pathMm === null ? "as measured" : `${row.pathMm} mm`]);
+  items.push(["measured thickness", d.thicknessMm === null ? "not given" : `${d.thicknessMm} mm`]);
+  if (d.polarisation) items.push(["polarisation", d.polarisation]);
+  if (d.host) items.push(["host", d.host]);
+  for (const [k, v] of Object.entries(d.extra ?? {})) if (v) items.push([k, v]);
+  if (row.notes) items.push(["notes", row.notes]);
+  for (const w of row.warnings) items.push(["note", w]);
+  return `<dl class="facts">${
+    items.map(([k, v]) => `<dt>${e(k)}</dt><dd>${e(v)}</dd>`).join("")
+  }</dl>${
+    row.marked ? `<p class="legend">${MARKS.marked.symbol}: ${e(MARKS.marked.text)}</p>` : ""
+  }`;
+}
+
+function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
+  const id = `s${row.index}`;
+  const out: string[] = [];
+  const path = row.pathMm === null ? "measured path" : `${row.pathMm} mm`;
+  const tPoints = d.plot.nm.map((x, i) => [x, d.plot.t[i]!] as [number, number]);
+  out.push(figure(
+    `Transmittance at ${path}`,
+    svgChart({
+      id: `${id}-t`,
+      title: `transmittance of ${row.sample}`,
+      xLabel: "wavelength (nm)",
+      yLabel: "transmittance",
+      x: paddedRange(d.plot.nm, 0),
+      y: [0, 1],
+      series: [{ points: tPoints, color: PALETTE.ink, kind: "line" }],
+    }),
+  ));
+  if (d.bands) {
+    const b = d.bands;
+    const pts = (arr: number[]) => b.nm.map((x, i) => [x, arr[i]!] as [number, number]);
+    out.push(figure(
+      "Absorption bands (fit in wavenumber)",
+      svgChart({
+        id: `${id}-b`,
+        title: `band fit of ${row.sample}`,
+        xLabel: "wavelength (nm)",
+        yLabel: b.ordinate,
+        x: paddedRange(b.nm, 0),
+        y: paddedRange([...b.data, ...b.model]),
+        series: [
+          { points: pts(b.data), color: PALETTE.ink, kind: "line", label: `measured`, size: 1.2 },
+          {
+            points: pts(b.model),
+            color: PALETTE.lamp,
+            kind: "line",
+            dash: "5 3",
+            label: "fit (bands + baseline)",
+          },
+        ],
+      }),
+    ));
+  }
+  const obs = input.xyObserver;
+  const locus = input.loci[obs];
+  const xy = d.xy.filter((p) => p.observer === obs);
+  out.push(figure(
+    xyTitle(obs),
+    svgChart({
+      id: `${id}-xy`,
+      title: `chromaticity of ${row.sample}`,
+      xLabel: obs === "10" ? "x₁₀" : "x",
+      yLabel: obs === "10" ? "y₁₀" : "y",
+      x: [0, 0.8],
+      y: [0, 0.9],
+      square: true,
+      series: [
+        ...(locus
+          ? [{
+            points: [...locus.x.map((x, i) => [x, locus.y[i]!] as [number, number]), [
+              locus.x[0]!,
+              locus.y[0]!,
+            ] as [number, number]],
+            color: PALETTE.ink,
+            kind: "line" as const,
+            size: 1,
+            label: "spectral locus",
+          }]
+          : []),
+        ...xy.map((p) => ({
+          points: [[p.wx, p.wy]] as [number, number][],
+          color: "#9aa5ab",
+          kind: "points" as const,
+          size: 2.5,
+        })),
+        ...xy.map((p) => ({
+          points: [[p.x, p.y]] as [number, number][],
+          color: lightColor(p.illuminant, row.from, row.to),
+          kind: "points" as const,
+          size: 4.5,
+          label: `under ${p.illuminant}`,
+        })),
+      ],
+    }) + `<p class="legend">grey dots: the illuminants' whites</p>`,
+  ));
+  const lim = Math.ceil(
+    Math.max(10, ...[...d.abFrom, ...d.abTo].map((v) => Math.abs(v) || 0)) * 1.1 / 10,
+  ) * 10;
+  out.push(figure(
+    `a* b* shift, ${row.from} → ${row.to} (${row.observer}°)`,
+    svgChart({
+      id: `${id}-ab`,
+      title: `a*b* shift of ${row.sample}`,
+      xLabel: "a*",
+      yLabel: "b*",
+      x: [-lim, lim],
+      y: [-lim, lim],
+      square: true,
+      series: [
+        { points: [[0, -lim], [0, lim]], color: "#c9c1b0", kind: "line", size: 0.8 },
+        { points: [[-lim, 0], [lim, 0]], color: "#c9c1b0", kind: "line", size: 0.8 },
+        { points: [d.abFrom, d.abTo], color: PALETTE.ink, kind: "arrow" },
+        { points: [d.abFrom], color: PALETTE.day, kind: "points", label: `under ${row.from}` },
+        { points: [d.abTo], color: PALETTE.lamp, kind: "points", label: `under ${row.to}` },
+      ],
+    }),
+  ));
+  return `<div class="stone-charts">${out.join("")}</div>`;
+}
+
+function figure(caption: string, svg: string): string {
+  return `<figure class="plot-box"><figcaption>${e(caption)}</figcaption>${svg}</figure>`;
+}
+
+function bandTable(d: ReportDetail): string {
+  if (!d.bands || d.bands.table.length === 0) return "";
+  return `<table class="numbers bands"><thead><tr><th>band centre (nm)</th><th>FWHM (cm⁻¹)</th><th>height</th><th>assignment hint</th></tr></thead><tbody>${
+    d.bands.table.slice(0, 8).map((b) =>
+      `<tr><td>${n(b.centerNm, 1)} ± ${n(b.centerNmSigma, 1)}</td><td>${n(b.fwhmCm1, 0)}</td><td>${
+        e(String(b.height))
+      }</td><td>${e(b.assignment || "—")}</td></tr>`
+    ).join("")
+  }</tbody></table>`;
+}
+
+/** The printed page of one stone. */
+export function renderStonePage(row: ReportRow, d: ReportDetail, input: ReportInput): string {
+  return `<section class="stone" id="stone-${row.index}" data-index="${row.index}">
+<h2 class="stone-name">${e(row.sample)} <small>${e(d.file)}</small></h2>
+<div class="stone-top"><div class="lights">${swatches(d)}</div>${numbers(d)}</div>
+${facts(row, d)}
+${charts(row, d, input)}
+${bandTable(d)}
+</section>`;
+}

@@ -1,0 +1,206 @@
+/**
+ * Static SVG charts for the printed stone pages: axes with round ticks, polylines and points,
+ * and arrows. Pure string output, so a page prints the same in any browser, with no script.
+ * Tick steps follow the usual 1-2-5 rule (common practice).
+ *
+ * @module
+ */
+import { escapeHtml as e } from "./escape.ts";
+
+/** One data series of a plot. */
+export interface SvgSeries {
+  /** Points [x, y] in data units. */
+  points: [number, number][];
+  /** Stroke or fill colour (CSS). */
+  color: string;
+  /** `line` joins the points, `points` marks each, `arrow` draws from the first to the last. */
+  kind: "line" | "points" | "arrow";
+  /** Legend text (omitted from the legend when empty). */
+  label?: string;
+  /** Dash pattern for lines, e.g. "5 3". */
+  dash?: string;
+  /** Line width or point radius, px. */
+  size?: number;
+  /** Axis the series uses: the left one (default) or a second one on the right. */
+  axis?: "left" | "right";
+}
+
+/** A whole plot. */
+export interface SvgPlot {
+  /** Unique within the page (names the clip path). */
+  id: string;
+  /** Accessible name of the chart. */
+  title: string;
+  xLabel: string;
+  yLabel: string;
+  x: [number, number];
+  y: [number, number];
+  /** Range of the right-hand axis, when some series use it. */
+  y2?: [number, number];
+  y2Label?: string;
+  series: SvgSeries[];
+  /** Keep one data unit the same length on both axes (a*b*, chromaticity). */
+  square?: boolean;
+}
+
+const W = 360, H = 250;
+const PAD = { left: 46, right: 14, top: 10, bottom: 56 };
+
+/** Round tick values covering [lo, hi], about `count` of them (1-2-5 steps). */
+export function niceTicks(lo: number, hi: number, count = 5): number[] {
+  if (!(hi > lo)) return [lo];
+  const raw = (hi - lo) / count;
+  const mag = 10 ** Math.floor(Math.log10(raw));
+  const step = [1, 2, 5, 10].map((m) => m * mag).find((s) => s >= raw) ?? 10 * mag;
+  const out: number[] = [];
+  for (let v = Math.ceil(lo / step - 1e-9) * step; v <= hi + step * 1e-9; v += step) {
+    out.push(Number(v.toPrecision(12)));
+  }
+  return out;
+}
+
+/** The range of finite values, widened a little; [0, 1] when there are none. */
+export function paddedRange(values: number[], pad = 0.05): [number, number] {
+  let lo = Infinity, hi = -Infinity;
+  for (const v of values) {
+    if (!Number.isFinite(v)) continue;
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  if (lo === Infinity) return [0, 1];
+  if (hi === lo) return [lo - 1, hi + 1];
+  const d = (hi - lo) * pad;
+  return [lo - d, hi + d];
+}
+
+/** At most `n` points of a line, evenly picked (the printed line cannot show more). */
+export function thinPoints(points: [number, number][], n = 200): [number, number][] {
+  if (points.length <= n) return points;
+  const out: [number, number][] = [];
+  for (let i = 0; i < n; i++) out.push(points[Math.round((i * (points.length - 1)) / (n - 1))]!);
+  return out;
+}
+
+const f = (v: number) => (Math.round(v * 10) / 10).toString();
+
+/** Renders a plot as an SVG element (viewBox-sized, scales to its box). */
+export function svgChart(plot: SvgPlot): string {
+  const [x0, x1] = plot.x, [y0, y1] = plot.y;
+  let iw = W - PAD.left - PAD.right - (plot.y2 ? 34 : 0), ih = H - PAD.top - PAD.bottom;
+  if (plot.square) {
+    // equal units: shrink the longer side's pixels
+    const ux = iw / (x1 - x0), uy = ih / (y1 - y0);
+    if (ux > uy) iw = uy * (x1 - x0);
+    else ih = ux * (y1 - y0);
+  }
+  const left = PAD.left, top = PAD.top;
+  const sx = (v: number) => left + ((v - x0) / (x1 - x0)) * iw;
+  const sy = (v: number, right = false) => {
+    const [a, b] = right && plot.y2 ? plot.y2 : [y0, y1];
+    return top + ih - ((v - a) / (b - a)) * ih;
+  };
+  const parts: string[] = [];
+  parts.push(
+    `<rect x="${left}" y="${top}" width="${f(iw)}" height="${
+      f(ih)
+    }" fill="none" stroke="#c9c1b0"/>`,
+  );
+  for (const t of niceTicks(x0, x1)) {
+    const X = f(sx(t));
+    parts.push(
+      `<line x1="${X}" x2="${X}" y1="${top}" y2="${f(top + ih)}" stroke="#ece6da"/>` +
+        `<text x="${X}" y="${f(top + ih + 13)}" text-anchor="middle">${e(tickText(t))}</text>`,
+    );
+  }
+  for (const t of niceTicks(y0, y1)) {
+    const Y = f(sy(t));
+    parts.push(
+      `<line x1="${left}" x2="${f(left + iw)}" y1="${Y}" y2="${Y}" stroke="#ece6da"/>` +
+        `<text x="${left - 4}" y="${f(sy(t) + 3.5)}" text-anchor="end">${e(tickText(t))}</text>`,
+    );
+  }
+  if (plot.y2) {
+    for (const t of niceTicks(plot.y2[0], plot.y2[1], 4)) {
+      parts.push(
+        `<text x="${f(left + iw + 4)}" y="${f(sy(t, true) + 3.5)}">${e(tickText(t))}</text>`,
+      );
+    }
+    parts.push(
+      `<text transform="translate(${f(left + iw + 44)} ${
+        f(top + ih / 2)
+      }) rotate(90)" text-anchor="middle">${e(plot.y2Label ?? "")}</text>`,
+    );
+  }
+  parts.push(
+    `<text x="${f(left + iw / 2)}" y="${f(top + ih + 27)}" text-anchor="middle" class="axis">${
+      e(plot.xLabel)
+    }</text>`,
+    `<text transform="translate(11 ${
+      f(top + ih / 2)
+    }) rotate(-90)" text-anchor="middle" class="axis">${e(plot.yLabel)}</text>`,
+  );
+  const clip = `<clipPath id="clip-${e(plot.id)}"><rect x="${left}" y="${top}" width="${
+    f(iw)
+  }" height="${f(ih)}"/></clipPath>`;
+  const body: string[] = [];
+  for (const s of plot.series) {
+    const right = s.axis === "right";
+    const pts = s.points.filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));
+    if (s.kind === "line" && pts.length > 1) {
+      body.push(
+        `<polyline fill="none" stroke="${e(s.color)}" stroke-width="${s.size ?? 1.4}"${
+          s.dash ? ` stroke-dasharray="${e(s.dash)}"` : ""
+        } points="${
+          thinPoints(pts).map(([a, b]) => `${f(sx(a))},${f(sy(b, right))}`).join(" ")
+        }"/>`,
+      );
+    } else if (s.kind === "points") {
+      for (const [a, b] of pts) {
+        body.push(
+          `<circle cx="${f(sx(a))}" cy="${f(sy(b, right))}" r="${s.size ?? 3.5}" fill="${
+            e(s.color)
+          }"/>`,
+        );
+      }
+    } else if (s.kind === "arrow" && pts.length >= 2) {
+      const [a, b] = [pts[0]!, pts[pts.length - 1]!];
+      const X1 = sx(a[0]), Y1 = sy(a[1]), X2 = sx(b[0]), Y2 = sy(b[1]);
+      const ang = Math.atan2(Y2 - Y1, X2 - X1), h = 8;
+      body.push(
+        `<line x1="${f(X1)}" y1="${f(Y1)}" x2="${f(X2)}" y2="${f(Y2)}" stroke="${
+          e(s.color)
+        }" stroke-width="${s.size ?? 1.6}"/>` +
+          `<polygon fill="${e(s.color)}" points="${f(X2)},${f(Y2)} ${
+            f(X2 - h * Math.cos(ang - 0.4))
+          },${f(Y2 - h * Math.sin(ang - 0.4))} ${f(X2 - h * Math.cos(ang + 0.4))},${
+            f(Y2 - h * Math.sin(ang + 0.4))
+          }"/>`,
+      );
+    }
+  }
+  // legend items flow left to right and wrap (label width estimated at 5.3 px per character)
+  const legend: string[] = [];
+  let lx = left, ly = top + ih + 41;
+  for (const s of plot.series.filter((s) => s.label)) {
+    const width = 18 + s.label!.length * 5.3 + 12;
+    if (lx > left && lx + width > W - 4) {
+      lx = left;
+      ly += 12;
+    }
+    const mark = s.kind === "points"
+      ? `<circle cx="${f(lx + 6)}" cy="${f(ly - 3.5)}" r="3.5" fill="${e(s.color)}"/>`
+      : `<line x1="${f(lx)}" x2="${f(lx + 12)}" y1="${f(ly - 3.5)}" y2="${f(ly - 3.5)}" stroke="${
+        e(s.color)
+      }" stroke-width="2"${s.dash ? ` stroke-dasharray="${e(s.dash)}"` : ""}/>`;
+    legend.push(`${mark}<text x="${f(lx + 16)}" y="${f(ly)}">${e(s.label)}</text>`);
+    lx += width;
+  }
+  return `<svg class="plot" viewBox="0 0 ${W} ${H}" role="img" aria-label="${
+    e(plot.title)
+  }" xmlns="http://www.w3.org/2000/svg"><defs>${clip}</defs>${parts.join("")}` +
+    `<g clip-path="url(#clip-${e(plot.id)})">${body.join("")}</g>${legend.join("")}</svg>`;
+}
+
+function tickText(v: number): string {
+  return Math.abs(v) >= 1000 || v === Math.round(v) ? String(v) : String(Number(v.toPrecision(3)));
+}
