@@ -4,8 +4,8 @@
  * spelled out. A hint, never a certainty: several candidates are listed when they fit alike.
  * Catalogue entries whose position is from memory never make a hint on their own: they are
  * listed only when a published entry of the same ion in the same host matches a band of the
- * same spectrum. Entries for one polarisation are used only for spectra of that polarisation
- * (or of unknown polarisation).
+ * same spectrum; a component entry (a shoulder) only beside the band it belongs to. Entries
+ * for one polarisation are used only for spectra of that polarisation (or of unknown one).
  *
  * @module
  */
@@ -53,17 +53,20 @@ export function assignBands(
     return Math.exp(-0.5 * ((band.centerCm1 - e.centerCm1) / tol) ** 2) *
       Math.exp(-0.5 * (Math.log(widthRatio) / Math.log(2.5)) ** 2);
   };
-  // ions (per host) that a published entry places in this spectrum
-  const present = new Set<string>();
+  // ions (per host) that a published entry places in this spectrum, and the transitions seen
+  const present = new Set<string>(), seen = new Set<string>();
   for (const e of entries) {
     if (e.status === "published" && bands.some((b) => score(b, e) >= MIN_SCORE)) {
       present.add(`${e.ion}|${e.host}`);
+      seen.add(`${e.ion}|${e.host}|${e.transition}`);
     }
   }
   const out: BandAssignment[] = [];
   bands.forEach((band, bandIndex) => {
     const scored = entries
       .filter((e) => e.status === "published" || present.has(`${e.ion}|${e.host}`))
+      // a component (the shoulder of a band) only beside the band it belongs to
+      .filter((e) => !e.requires || seen.has(`${e.ion}|${e.host}|${e.requires}`))
       .map((e) => {
         const dPos = band.centerCm1 - e.centerCm1;
         const reason = `centre ${band.centerCm1.toFixed(0)} cm⁻¹ vs ${e.centerCm1} (${

@@ -47,6 +47,14 @@ describe("assignBands()", () => {
     expect(top.transition).toMatch(/E∥c/);
     expect(top.reason).toMatch(/from memory/);
   });
+  it("the Ti3+ shoulder near 560 nm is hinted only beside the 490 nm band (Moulton et al. 2019)", () => {
+    const withMain = assignBands([band(20400, 5000), band(17860, 3500)], "corundum");
+    expect(withMain.some((x) => x.bandIndex === 1 && /upper component/.test(x.transition))).toBe(
+      true,
+    );
+    const alone = assignBands([band(17860, 3500)], "corundum");
+    expect(alone.some((x) => /upper component/.test(x.transition))).toBe(false);
+  });
   it("entries for the other ray are left out of a polarised spectrum", () => {
     const a = assignBands([band(17700, 4500), band(14100, 4500)], "corundum", 5, "o");
     expect(a.some((x) => /E∥c/.test(x.transition))).toBe(false);

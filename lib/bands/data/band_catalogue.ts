@@ -20,6 +20,8 @@ export interface CatalogueBand {
   polarisation: string;
   /** When the position holds for one polarisation only: "o" (E⊥c) or "e" (E∥c). */
   ray?: "o" | "e";
+  /** A component seen only beside another band of the same ion: that band's transition. */
+  requires?: string;
   source: string;
   status: "published" | "from memory, unverified";
 }
@@ -85,6 +87,7 @@ export const BAND_CATALOGUE: CatalogueBand[] = [
     centerCm1: 17860,
     fwhmCm1: 4000,
     polarisation: "shoulder of the 490 nm band, near 560 nm",
+    requires: "2T2→2E (Jahn–Teller split)",
     source:
       "peaks at 485 and 560 nm typical of Ti3+ in corundum, as cited from Gems & Gemology (after McClure 1962; Townsend 1968); width from memory",
     status: "published",
