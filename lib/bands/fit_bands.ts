@@ -193,6 +193,17 @@ function insignificant(b: FittedBand): boolean {
     (b.held?.includes("centerCm1") ?? false);
 }
 
+/** True when the data climb toward the high-wavenumber end (an edge may reach in): the mean of the top 5 % of points stands 3σ above the median and above the mean of the 5 % before. */
+function climbsAtTop(data: FitData): boolean {
+  const n = data.y.length, k = Math.max(5, Math.round(0.05 * n));
+  if (n < 3 * k) return false;
+  const mean = (a: Float64Array) => a.reduce((p, q) => p + q, 0) / a.length;
+  const top = mean(data.y.subarray(n - k)), before = mean(data.y.subarray(n - 2 * k, n - k));
+  const median = Float64Array.from(data.y).sort()[Math.floor(n / 2)]!;
+  const s = mean(data.sigma.subarray(n - k));
+  return top > before && top > median + 3 * s;
+}
+
 function edgeStart(x: Float64Array): number {
   return (x[x.length - 1]! - x[0]!) / 12;
 }
@@ -274,7 +285,9 @@ export function fitBandsCm1(
       return prune(attempt(plain));
     };
     const bands = startsFrom(detectOn(prep, maxBands), narrow);
-    const edges = edgeOption === "auto" ? [false, true] : [edgeOption];
+    const edges = edgeOption === "auto" ? (climbsAtTop(data) ? [false, true] : [false]) : [
+      edgeOption,
+    ];
     for (const edge of edges) {
       const e = settle(spec(bands, edge));
       if (valid(e) && (!best || e.bic < best.bic)) best = e;
