@@ -1,18 +1,29 @@
 /**
- * `crystint bands`: detect and fit absorption bands, and suggest their assignment.
+ * `crystint bands`: detect and fit absorption bands, suggest their assignment, and (with
+ * --edge) analyse the absorption edge. Parses options and prints; the work is done by
+ * lib/bands/analyse_bands.ts.
  *
  * @module
  */
-import { type BandFit, fitSpectrumBands } from "../lib/bands/fit_bands.ts";
-import { assignBands, type BandAssignment } from "../lib/bands/assign_bands.ts";
+import {
+  analyseBands,
+  type BandAnalysis,
+  type BandAnalysisOptions,
+} from "../lib/bands/analyse_bands.ts";
 import { getHost, hostIndex } from "../lib/optics/refractive_index.ts";
 import { densityFromBand } from "../lib/dopant/smakula_dexter.ts";
-import { alphaOf } from "../lib/dopant/response_metric.ts";
 import { figureOfMerit } from "../lib/bands/figure_of_merit.ts";
-import { taucGap, urbachEnergy } from "../lib/bands/absorption_edge.ts";
-import { nmToEv } from "../lib/spectrum/axis.ts";
 import type { CommandSpec, ParsedArgs } from "./_command.ts";
-import { EXIT, outputFormat, round, toCsv, toTable, UsageError, writeStdout } from "./_shared.ts";
+import {
+  EXIT,
+  outputFormat,
+  positiveNumber,
+  round,
+  toCsv,
+  toTable,
+  UsageError,
+  writeStdout,
+} from "./_shared.ts";
 import { ALPHA_NOTE, OUTPUT_OPTIONS, READING_OPTIONS } from "./_options.ts";
 import { forEachFile } from "./_spectrum_options.ts";
 
@@ -36,11 +47,24 @@ export const BANDS_COMMAND: CommandSpec = {
       help: "fit only this wavelength range, e.g. 330-900",
     },
     {
-      name: "baseline-nm",
+      name: "floor-t",
       type: "string",
-      arg: "LIST",
-      help: "band-free windows for the starting baseline, e.g. 330-340,740-780",
-      default: "found automatically outside the detected bands",
+      arg: "T",
+      help: "transmittance (fraction) below which readings are left out as carrying no information",
+      default: "10× the noise of the transmittance reading, estimated from the data",
+    },
+    {
+      name: "max-absorbance",
+      type: "string",
+      arg: "A",
+      help: "the instrument's absorbance limit; readings above it are left out",
+    },
+    {
+      name: "resolution-nm",
+      type: "string",
+      arg: "NM",
+      help: "instrument resolution (FWHM); no band is fitted narrower",
+      default: "two grid steps",
     },
     ...READING_OPTIONS,
     {
@@ -67,20 +91,54 @@ export const BANDS_COMMAND: CommandSpec = {
       name: "edge",
       type: "string",
       arg: "direct|indirect",
-      help: "Tauc gap and Urbach energy of the absorption edge (needs α)",
+      help: "Tauc gap and Urbach energy of the absorption edge (from A·ln 10 when no thickness " +
+        "is known: neither depends on the scale)",
     },
     ...OUTPUT_OPTIONS,
   ],
   notes: [
-    "Bands are Gaussian in energy (Lorentzian for lines narrower than 150 cm⁻¹), fitted with a " +
-    "baseline b0 + b1·ν̃ + scatter·ν̃⁴ by Levenberg–Marquardt; ± are 1σ standard errors. The " +
-    "fitted ordinate is decadic absorbance as measured, or α (natural, cm⁻¹) for α files. " +
-    "Assignments are hints. --csv gives one row per band.",
+    "Bands are Gaussian in energy (Lorentzian for lines narrower than 150 cm⁻¹), fitted on the " +
+    "usable range (stretches below the photometric floor, above the absorbance limit or clipped " +
+    "are left out and listed) with a baseline b0 + b1·ν̃ + scatter·ν̃⁴, plus an Urbach-type edge " +
+    "term where the absorption edge reaches in, by variable projection weighted by the " +
+    "photometric noise; where the residual shows structure a band is added or split and kept " +
+    "when BIC prefers it. ± are 1σ standard errors; a width held at a bound has none (held). " +
+    "The fitted ordinate is decadic absorbance as measured, or α for α files; with a thickness " +
+    "the bands are also given as α (natural, cm⁻¹). Assignments are hints. --csv gives one row " +
+    "per band.",
     ALPHA_NOTE,
   ],
   examples: ["slabs/TCW-R03.csv --host corundum --range-nm 330-900 --json"],
   run: bandsCommand,
 };
+
+/** One printed result: the analysis plus file and the optional estimates. */
+type BandsRow = Omit<BandAnalysis, "curve"> & {
+  file: string;
+  densityEstimates?: {
+    centerNm: number;
+    densityPerCm3: number;
+    oscillatorStrength: number;
+    n: number;
+  }[];
+  figureOfMerit?: number;
+};
+
+function rangeOption(value: string | undefined, name: string): [number, number] | undefined {
+  if (value === undefined) return undefined;
+  const m = /^\s*(\d+(?:\.\d+)?)\s*[-:,]\s*(\d+(?:\.\d+)?)\s*$/.exec(value);
+  if (!m || !(Number(m[2]) > Number(m[1]))) {
+    throw new UsageError(`Option --${name} needs FROM-TO in nm, got "${value}"`);
+  }
+  return [Number(m[1]), Number(m[2])];
+}
+
+function plusMinus(value: number, sigma: number | null, digits: number): string {
+  const v = String(round(value, digits));
+  if (sigma === null) return `${v} (held)`;
+  if (!Number.isFinite(sigma)) return `${v} ± ?`;
+  return `${v} ± ${round(sigma, digits)}`;
+}
 
 /** Runs the command; returns the exit code. */
 async function bandsCommand(args: ParsedArgs): Promise<number> {
@@ -88,7 +146,9 @@ async function bandsCommand(args: ParsedArgs): Promise<number> {
   const values = {
     host: args.string("host"),
     "range-nm": args.string("range-nm"),
-    "baseline-nm": args.string("baseline-nm"),
+    "floor-t": args.string("floor-t"),
+    "max-absorbance": args.string("max-absorbance"),
+    "resolution-nm": args.string("resolution-nm"),
     "oscillator-strength": args.string("oscillator-strength"),
     n: args.string("n"),
     merit: args.string("merit"),
@@ -98,70 +158,30 @@ async function bandsCommand(args: ParsedArgs): Promise<number> {
   if (positionals.length === 0) {
     throw new UsageError("No input files: give one or more spectrum files");
   }
-  let host: string | undefined;
+  const options: BandAnalysisOptions = {};
   if (values.host !== undefined) {
     try {
-      host = getHost(values.host).name;
+      options.host = getHost(values.host).name;
     } catch (e) {
       throw new UsageError((e as Error).message);
     }
   }
-  let rangeNm: [number, number] | undefined;
-  if (values["range-nm"] !== undefined) {
-    const m = /^\s*(\d+(?:\.\d+)?)\s*[-:,]\s*(\d+(?:\.\d+)?)\s*$/.exec(values["range-nm"]);
-    if (!m || !(Number(m[2]) > Number(m[1]))) {
-      throw new UsageError(`Option --range-nm needs FROM-TO in nm, got "${values["range-nm"]}"`);
+  const rangeNm = rangeOption(values["range-nm"], "range-nm");
+  if (rangeNm) options.rangeNm = rangeNm;
+  const floor = positiveNumber(values["floor-t"], "floor-t");
+  if (floor !== undefined) {
+    if (floor >= 1) {
+      throw new UsageError(`Option --floor-t needs a fraction below 1, got "${floor}"`);
     }
-    rangeNm = [Number(m[1]), Number(m[2])];
+    options.floorTransmittance = floor;
   }
-  interface SampleBands {
-    sample: string;
-    file: string;
-    ordinate: BandFit["ordinate"];
-    bands: BandFit["bands"];
-    baseline: BandFit["baseline"];
-    residualRms: number;
-    noiseSigma: number;
-    converged: boolean;
-    assignments: BandAssignment[];
-    densityEstimates?: {
-      centerNm: number;
-      densityPerCm3: number;
-      oscillatorStrength: number;
-      n: number;
-    }[];
-    figureOfMerit?: number;
-    edge?: {
-      gapEv: number;
-      exponent: string;
-      fromEv: number;
-      toEv: number;
-      urbachEv: number | null;
-    };
-  }
-  let windowsCm1: [number, number][] | undefined;
-  if (values["baseline-nm"] !== undefined) {
-    windowsCm1 = values["baseline-nm"].split(",").map((w) => {
-      const m = /^\s*(\d+(?:\.\d+)?)\s*-\s*(\d+(?:\.\d+)?)\s*$/.exec(w);
-      if (!m || !(Number(m[2]) > Number(m[1]))) {
-        throw new UsageError(`Option --baseline-nm needs FROM-TO windows, got "${w}"`);
-      }
-      return [1e7 / Number(m[2]), 1e7 / Number(m[1])] as [number, number];
-    });
-  }
-  const fitOptions = {
-    ...(rangeNm ? { rangeNm } : {}),
-    ...(windowsCm1 ? { baselineWindowsCm1: windowsCm1 } : {}),
-  };
-  const results: SampleBands[] = [];
-  const f = values["oscillator-strength"] === undefined
-    ? undefined
-    : Number(values["oscillator-strength"]);
-  if (f !== undefined && !(f > 0)) {
-    throw new UsageError("Option --oscillator-strength needs a positive number");
-  }
-  const nConst = values.n === undefined ? undefined : Number(values.n);
-  if (f !== undefined && !host && !(nConst! > 0)) {
+  const maxA = positiveNumber(values["max-absorbance"], "max-absorbance");
+  if (maxA !== undefined) options.maxAbsorbance = maxA;
+  const resolution = positiveNumber(values["resolution-nm"], "resolution-nm");
+  if (resolution !== undefined) options.resolutionNm = resolution;
+  const f = positiveNumber(values["oscillator-strength"], "oscillator-strength");
+  const nConst = positiveNumber(values.n, "n");
+  if (f !== undefined && !options.host && nConst === undefined) {
     throw new UsageError("--oscillator-strength needs --host NAME or --n VALUE");
   }
   let merit: [number, number] | undefined;
@@ -170,20 +190,25 @@ async function bandsCommand(args: ParsedArgs): Promise<number> {
     if (!m) throw new UsageError(`Option --merit needs PUMP,RES in nm, got "${values.merit}"`);
     merit = [Number(m[1]), Number(m[2])];
   }
-  if (values.edge !== undefined && !["direct", "indirect"].includes(values.edge)) {
-    throw new UsageError(`Option --edge takes direct or indirect, got "${values.edge}"`);
+  if (values.edge !== undefined) {
+    if (values.edge !== "direct" && values.edge !== "indirect") {
+      throw new UsageError(`Option --edge takes direct or indirect, got "${values.edge}"`);
+    }
+    options.tauc = values.edge;
   }
+  const results: BandsRow[] = [];
   const failed = await forEachFile(positionals, args, (spectra, file) => {
     for (const s of spectra) {
-      const fit = fitSpectrumBands(s, fitOptions);
-      const extra: Partial<SampleBands> = {};
+      const { curve: _curve, ...analysis } = analyseBands(s, options);
+      const row: BandsRow = { ...analysis, file };
       if (f !== undefined) {
-        const alphaFit = s.quantity === "alpha" ? fit : fitSpectrumBands(
-          { ...s, quantity: "alpha", values: alphaOf(s) },
-          rangeNm ? { rangeNm } : {},
-        );
-        extra.densityEstimates = alphaFit.bands.map((b) => {
-          const n = host ? hostIndex(getHost(host), b.centerNm).n : nConst!;
+        if (!analysis.bandsAlpha) {
+          throw new RangeError(
+            `Cannot estimate densities for "${s.meta.sample}": α needs the thickness`,
+          );
+        }
+        row.densityEstimates = analysis.bandsAlpha.map((b) => {
+          const n = options.host ? hostIndex(getHost(options.host), b.centerNm).n : nConst!;
           return {
             centerNm: b.centerNm,
             densityPerCm3: densityFromBand(b.height, b.fwhmCm1, n, f),
@@ -192,34 +217,8 @@ async function bandsCommand(args: ParsedArgs): Promise<number> {
           };
         });
       }
-      if (merit) extra.figureOfMerit = figureOfMerit(s, merit[0], merit[1]);
-      if (values.edge) {
-        const alpha = alphaOf(s);
-        const ev = [...s.wavelengthNm].map(nmToEv);
-        const t = taucGap(ev, alpha, values.edge as "direct" | "indirect");
-        if (t) {
-          const u = urbachEnergy(ev, alpha, t.gapEv);
-          extra.edge = {
-            gapEv: t.gapEv,
-            exponent: t.exponent,
-            fromEv: t.region.fromEv,
-            toEv: t.region.toEv,
-            urbachEv: u?.urbachEv ?? null,
-          };
-        }
-      }
-      results.push({
-        ...extra,
-        sample: s.meta.sample,
-        file,
-        ordinate: fit.ordinate,
-        bands: fit.bands,
-        baseline: fit.baseline,
-        residualRms: fit.residualRms,
-        noiseSigma: fit.noiseSigma,
-        converged: fit.converged,
-        assignments: assignBands(fit.bands, host),
-      });
+      if (merit) row.figureOfMerit = figureOfMerit(s, merit[0], merit[1]);
+      results.push(row);
     }
   });
   const rows = results.flatMap((r) =>
@@ -228,13 +227,22 @@ async function bandsCommand(args: ParsedArgs): Promise<number> {
       file: r.file,
       band: i + 1,
       ...b,
+      held: (b.held ?? []).join(" "),
       assignment:
         r.assignments.filter((a) => a.bandIndex === i).map((a) => `${a.ion} ${a.transition}`)[0] ??
           "",
     }))
   );
-  if (format === "json") console.log(JSON.stringify(results, null, 2));
-  else if (format === "csv") {
+  if (format === "json") {
+    // the JSON contract puts sample and file first
+    console.log(
+      JSON.stringify(
+        results.map(({ sample, file, ...rest }) => ({ sample, file, ...rest })),
+        null,
+        2,
+      ),
+    );
+  } else if (format === "csv") {
     const cols = [
       "sample",
       "file",
@@ -257,10 +265,10 @@ async function bandsCommand(args: ParsedArgs): Promise<number> {
     const shown = rows.map((r) => ({
       sample: r.sample,
       band: r.band,
-      "centre (nm)": `${round(r.centerNm, 1)} ± ${round(r.centerNmSigma, 1)}`,
-      "centre (cm⁻¹)": `${round(r.centerCm1, 0)} ± ${round(r.centerCm1Sigma, 0)}`,
-      "FWHM (cm⁻¹)": `${round(r.fwhmCm1, 0)} ± ${round(r.fwhmCm1Sigma, 0)}`,
-      height: `${round(r.height, 4)} ± ${round(r.heightSigma, 4)}`,
+      "centre (nm)": plusMinus(r.centerNm, r.centerNmSigma, 1),
+      "centre (cm⁻¹)": plusMinus(r.centerCm1, r.centerCm1Sigma, 0),
+      "FWHM (cm⁻¹)": plusMinus(r.fwhmCm1, r.fwhmCm1Sigma, 0),
+      height: plusMinus(r.height, r.heightSigma, 4),
       assignment: r.assignment,
     }));
     console.log(
@@ -274,6 +282,25 @@ async function bandsCommand(args: ParsedArgs): Promise<number> {
         "assignment",
       ]),
     );
+    for (const r of results) {
+      if (r.edge) {
+        const e = r.edge;
+        const gap = e.gapEv === null
+          ? e.message ?? "no gap"
+          : `gap ${plusMinus(e.gapEv, e.gapEvSigma, 3)} eV (Tauc ${e.exponent}, ${
+            e.fromEv!.toFixed(2)
+          }–${e.toEv!.toFixed(2)} eV)`;
+        const urbach = e.urbachEv === null ? "no Urbach tail found" : `Urbach energy ${
+          plusMinus(
+            e.urbachEv * 1000,
+            e.urbachEvSigma === null ? null : e.urbachEvSigma * 1000,
+            0,
+          )
+        } meV`;
+        console.log(`${r.sample}: ${gap}; ${urbach}`);
+      }
+      for (const w of r.warnings) console.error(`crystint: ${r.sample}: ${w}`);
+    }
   }
   return failed > 0 ? EXIT.someFailed : EXIT.ok;
 }

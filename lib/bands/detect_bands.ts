@@ -69,6 +69,8 @@ export interface DetectOptions {
   minHeightSigma?: number;
   /** Window half-widths to try, cm⁻¹ (default 40, 150, 500, 1200). */
   scalesCm1?: number[];
+  /** Noise σ per input point (e.g. propagated photometric noise); estimated from the data when omitted. */
+  noiseSigma?: ArrayLike<number>;
 }
 
 /**
@@ -82,8 +84,11 @@ export function detectBands(
   const { threshold = 5, minHeightSigma = 5, scalesCm1 = [40, 150, 500, 1200] } = options;
   const u = uniformResample(x, y);
   const n = u.x.length;
-  const noise = Math.max(estimateNoise(u.y), 1e-12);
-  const local = localNoise(u.y);
+  const local = options.noiseSigma ? resampleLinear(x, options.noiseSigma, u.x) : localNoise(u.y);
+  const noise = Math.max(
+    options.noiseSigma ? [...local].sort((a, b) => a - b)[0]! : estimateNoise(u.y),
+    1e-12,
+  );
   // Fine scales first: a coarser window only adds a band where no finer one found any, so
   // overlapping bands resolved at a fine scale are not swallowed by their blurred sum.
   const kept: (BandCandidate & { lo: number; hi: number })[] = [];
@@ -106,7 +111,7 @@ export function detectBands(
       const fwhm = Math.max(sigma * FWHM_PER_SIGMA, 2 * u.step);
       // height from the curvature of a Gaussian at its centre: y'' = −h/σ²
       const height = Math.min(-v * sigma * sigma, Math.max(smooth[i]!, 0));
-      if (!(height > minHeightSigma * noise)) continue;
+      if (!(height > minHeightSigma * local[i]!)) continue;
       const c = {
         centerCm1: u.x[i]!,
         fwhmCm1: fwhm,

@@ -1,260 +1,230 @@
 /**
- * Fits absorption bands: sum of Gaussians (or Lorentzians for sharp lines) in wavenumber plus
- * a baseline, by bounded Levenberg–Marquardt with an analytic Jacobian; standard errors from
- * the covariance at the optimum scaled by the residual variance.
+ * Fits absorption bands: sum of Gaussians (Lorentzians for sharp lines) in wavenumber plus a
+ * baseline and, where the absorption edge reaches into the range, an Urbach-type edge term,
+ * by variable projection (Golub & Pereyra, SIAM J. Numer. Anal. 10, 413 (1973)). Weights are
+ * 1/σᵢ² from the per-point noise; standard errors from the covariance at the optimum.
+ *
+ * Without given candidates the model is chosen: bands from the second-derivative detection,
+ * insignificant ones dropped, then, while the residual shows structure above the noise, a
+ * band is added there or the nearest band split, and the larger model kept only when the
+ * Bayesian information criterion BIC = n·ln(χ²/n) + k·ln n (Schwarz, Ann. Stat. 6, 461
+ * (1978); χ² the weighted residual sum of squares) is lower. AIC = n·ln(χ²/n) + 2k (Akaike,
+ * IEEE Trans. Autom. Control 19, 716 (1974)) is reported beside it.
  *
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { spectrumAbsorbance } from "../spectrum/ordinate.ts";
+import { type BandCandidate, detectBands } from "./detect_bands.ts";
 import {
-  bandArea,
-  type BandShape,
-  evaluateModel,
-  type ModelLayout,
-  parameterCount,
-} from "./band_model.ts";
-import {
-  type BandCandidate,
-  detectBands,
-  estimateNoise,
-  localNoise,
-  uniformResample,
-} from "./detect_bands.ts";
-import { levenbergMarquardt } from "../numeric/levenberg_marquardt.ts";
+  type BandStart,
+  type BaselineTerm,
+  type FitData,
+  fitModel,
+  type FittedBand,
+  type FittedBaseline,
+  type ModelFit,
+  type ModelSpec,
+} from "./_fit_model.ts";
+import { residualStructure } from "./residual_structure.ts";
+import { ordinateNoise, smoothResidual } from "./ordinate_noise.ts";
+import { type ExcludedRange, usableRange, type UsableRangeOptions } from "./usable_range.ts";
 
-/** One fitted band with 1σ standard errors. */
-export interface FittedBand {
-  shape: BandShape;
-  centerCm1: number;
-  centerCm1Sigma: number;
-  centerNm: number;
-  centerNmSigma: number;
-  fwhmCm1: number;
-  fwhmCm1Sigma: number;
-  height: number;
-  heightSigma: number;
-  /** Integral over cm⁻¹, in ordinate units × cm⁻¹. */
-  area: number;
-  areaSigma: number;
-}
+export type { FittedBand, FittedBaseline } from "./_fit_model.ts";
 
-/** The fitted baseline: b0 + b1·t + b2·t² + scatter·(ν̃/20000)⁴, t = (ν̃ − mid)/half. */
-export interface FittedBaseline {
-  b0: number;
-  b1: number;
-  b2: number;
-  scatter: number;
-  midCm1: number;
-  halfCm1: number;
+/** One model tried during model selection. */
+export interface ModelTried {
+  /** Number of bands. */
+  bands: number;
+  edge: boolean;
+  parameters: number;
+  chi2: number;
+  aic: number;
+  bic: number;
+  /** True for the model kept. */
+  chosen: boolean;
 }
 
 /** Result of a band fit. */
 export interface BandFit {
   bands: FittedBand[];
   baseline: FittedBaseline;
+  /** RMS of data − model over the fitted points, ordinate units. */
   residualRms: number;
-  /** Noise σ estimated from the data before fitting. */
+  /** RMS of the per-point noise σ over the fitted points: what residualRms should be. */
   noiseSigma: number;
+  /** χ²/(n − p) with the per-point noise σ: near 1 when the model and the noise are right. */
+  reducedChi2: number;
   converged: boolean;
   iterations: number;
   /** What the ordinate was: absorbance (decadic) or alpha (cm⁻¹). */
   ordinate: "absorbance" | "alpha";
-  /** The data, model and residual on the fitted wavenumber grid, for plots. */
+  /** The criterion that chose the model. */
+  criterion: "BIC";
+  /** Models tried, with their criterion values (one entry when candidates were given). */
+  models: ModelTried[];
+  /** Runs-test z of the final residual (Wald & Wolfowitz 1940). */
+  runsZ: number;
+  /** Plain-language notes: unconverged fit, held widths, residual structure left. */
+  warnings: string[];
+  /** Stretches left out as carrying no information (set by {@linkcode fitSpectrumBands}). */
+  excluded?: ExcludedRange[];
+  /** The data, model and noise on the fitted wavenumber grid, for plots. */
   curve: {
     cm1: Float64Array<ArrayBuffer>;
     data: Float64Array<ArrayBuffer>;
     model: Float64Array<ArrayBuffer>;
+    sigma: Float64Array<ArrayBuffer>;
   };
 }
 
-/** Options of {@linkcode fitBands}. */
+/** Options of {@linkcode fitBandsCm1}. */
 export interface FitOptions {
-  /** Starting bands; detected automatically when omitted. */
+  /** Starting bands (heights are solved exactly, only centre and FWHM are used); detected when omitted. */
   candidates?: BandCandidate[];
   /** Baseline terms (default b0, b1 and the λ⁻⁴ scatter term). */
-  baselineTerms?: ModelLayout["baselineTerms"];
+  baselineTerms?: BaselineTerm[];
   /** Bands narrower than this FWHM (cm⁻¹) are fitted as Lorentzians (default 150). */
   lorentzianBelowCm1?: number;
   /** Fit range in cm⁻¹. */
   rangeCm1?: [number, number];
-  /** Band-free windows (cm⁻¹) for the starting baseline; found automatically when omitted. */
-  baselineWindowsCm1?: [number, number][];
+  /** At most this many bands (default 8). */
   maxBands?: number;
+  /** Noise σ per input point; estimated from the data (uniform) when omitted. */
+  sigma?: ArrayLike<number>;
+  /** 1 for points to fit, 0 for points to leave out (per input point; default all). */
+  usable?: ArrayLike<number>;
+  /**
+   * Urbach-type edge term at the high-wavenumber end: true, false, or "auto" (tried and kept
+   * when BIC prefers it). Default "auto" without candidates, false with them.
+   */
+  edge?: boolean | "auto";
+  /** Smallest FWHM allowed (resolution cap), cm⁻¹, constant or per centre; default 2 grid steps. */
+  minFwhmCm1?: number | ((centerCm1: number) => number);
 }
 
-function linearBaselineStart(
-  x: Float64Array,
-  y: Float64Array,
-  free: boolean[],
-  layout: ModelLayout,
-): Float64Array {
-  const terms = layout.baselineTerms;
-  const m = terms.length;
-  const ata = new Float64Array(m * m), atb = new Float64Array(m);
-  const basis = (nu: number) => {
-    const t = (nu - layout.mid) / layout.half;
-    return terms.map((
-      term,
-    ) => (term === "b0" ? 1 : term === "b1" ? t : term === "b2" ? t * t : (nu / 20000) ** 4));
-  };
-  let used = 0;
-  for (let i = 0; i < x.length; i++) {
-    if (!free[i]) continue;
-    used++;
-    const b = basis(x[i]!);
-    for (let j = 0; j < m; j++) {
-      atb[j] = atb[j]! + b[j]! * y[i]!;
-      for (let k = 0; k < m; k++) ata[j * m + k] = ata[j * m + k]! + b[j]! * b[k]!;
-    }
+/** Detected bands whose fitted height is below this many standard errors are dropped (common practice). */
+export const MIN_BAND_SIGNIFICANCE = 3;
+
+/** Rounds of residual-driven model growth at most (our choice). */
+const MAX_ROUNDS = 5;
+
+interface Prepared {
+  data: FitData;
+  /** Contiguous runs of fitted points, as [from, to] indices into data. */
+  segments: [number, number][];
+  minFwhm: (c: number) => number;
+}
+
+function prepare(xIn: ArrayLike<number>, yIn: ArrayLike<number>, options: FitOptions): Prepared {
+  const order = Array.from({ length: xIn.length }, (_, i) => i).sort((a, b) => xIn[a]! - xIn[b]!);
+  const xs = Float64Array.from(order, (i) => xIn[i]!);
+  const ys = Float64Array.from(order, (i) => yIn[i]!);
+  const use = Uint8Array.from(order, (i) => {
+    const v = xIn[i]!;
+    const inRange = !options.rangeCm1 || (v >= options.rangeCm1[0] && v <= options.rangeCm1[1]);
+    return inRange && (!options.usable || options.usable[i]) ? 1 : 0;
+  });
+  const sigmaAll = options.sigma
+    ? Float64Array.from(order, (i) => options.sigma![i]!)
+    : ordinateNoise(ys, undefined, use).sigma;
+  const keep: number[] = [];
+  for (let i = 0; i < xs.length; i++) if (use[i]) keep.push(i);
+  const segments: [number, number][] = [];
+  keep.forEach((orig, k) => {
+    if (k > 0 && keep[k - 1] === orig - 1) segments[segments.length - 1]![1] = k;
+    else segments.push([k, k]);
+  });
+  const x = Float64Array.from(keep, (i) => xs[i]!);
+  const y = Float64Array.from(keep, (i) => ys[i]!);
+  const sigma = Float64Array.from(keep, (i) => sigmaAll[i]!);
+  const cap = options.minFwhmCm1;
+  const minFwhm = typeof cap === "function"
+    ? cap
+    : typeof cap === "number"
+    ? () => cap
+    : (c: number) => {
+      // two local grid steps: a narrower "band" is one point of noise
+      let j = 0;
+      while (j < xs.length - 2 && xs[j + 1]! < c) j++;
+      return 2 * Math.abs(xs[Math.min(j + 1, xs.length - 1)]! - xs[j]!);
+    };
+  return { data: { x, y, sigma }, segments, minFwhm };
+}
+
+function criterion(fit: ModelFit, n: number): { aic: number; bic: number } {
+  const base = n * Math.log(Math.max(fit.chi2, 1e-300) / n);
+  return { aic: base + 2 * fit.parameters, bic: base + fit.parameters * Math.log(n) };
+}
+
+function startsFrom(candidates: BandCandidate[], narrow: number): BandStart[] {
+  return candidates.map((c) => ({
+    centerCm1: c.centerCm1,
+    fwhmCm1: c.fwhmCm1,
+    shape: c.fwhmCm1 < narrow ? "lorentzian" : "gaussian",
+  }));
+}
+
+function startsOf(fit: ModelFit): BandStart[] {
+  return fit.bands.map((b) => ({ centerCm1: b.centerCm1, fwhmCm1: b.fwhmCm1, shape: b.shape }));
+}
+
+function detectOn(prep: Prepared, maxBands: number): BandCandidate[] {
+  const { x, y, sigma } = prep.data;
+  const found: BandCandidate[] = [];
+  for (const [a, b] of prep.segments) {
+    if (b - a + 1 < 15) continue;
+    found.push(
+      ...detectBands(x.subarray(a, b + 1), y.subarray(a, b + 1), {
+        noiseSigma: sigma.subarray(a, b + 1),
+      }),
+    );
   }
-  const out = new Float64Array(m);
-  if (used <= m) {
-    const min = y.reduce((a, v) => Math.min(a, v), Infinity);
-    out[terms.indexOf("b0")] = Number.isFinite(min) ? min : 0;
-    return out;
-  }
-  // Gaussian elimination on the small normal equations
-  const a = Array.from({ length: m }, (_, j) => [...ata.slice(j * m, j * m + m), atb[j]!]);
-  for (let c = 0; c < m; c++) {
-    let p = c;
-    for (let r = c + 1; r < m; r++) if (Math.abs(a[r]![c]!) > Math.abs(a[p]![c]!)) p = r;
-    [a[c], a[p]] = [a[p]!, a[c]!];
-    if (Math.abs(a[c]![c]!) < 1e-300) continue;
-    for (let r = 0; r < m; r++) {
-      if (r === c) continue;
-      const f = a[r]![c]! / a[c]![c]!;
-      for (let k = c; k <= m; k++) a[r]![k]! -= f * a[c]![k]!;
-    }
-  }
-  for (let j = 0; j < m; j++) out[j] = Math.abs(a[j]![j]!) > 1e-300 ? a[j]![m]! / a[j]![j]! : 0;
-  return out;
+  return found
+    .sort((p, q) => q.significance - p.significance)
+    .slice(0, maxBands)
+    .sort((p, q) => p.centerCm1 - q.centerCm1);
+}
+
+/** A band is dropped when the data cannot tell it from zero, or it sits on the range end. */
+function insignificant(b: FittedBand): boolean {
+  return !(b.height > 0) ||
+    b.height < MIN_BAND_SIGNIFICANCE * b.heightSigma ||
+    (b.held?.includes("centerCm1") ?? false);
+}
+
+/** True when the data climb toward the high-wavenumber end (an edge may reach in): the mean of the top 5 % of points stands 3σ above the median and above the mean of the 5 % before. */
+function climbsAtTop(data: FitData): boolean {
+  const n = data.y.length, k = Math.max(5, Math.round(0.05 * n));
+  if (n < 3 * k) return false;
+  const mean = (a: Float64Array) => a.reduce((p, q) => p + q, 0) / a.length;
+  const top = mean(data.y.subarray(n - k)), before = mean(data.y.subarray(n - 2 * k, n - k));
+  const median = Float64Array.from(data.y).sort()[Math.floor(n / 2)]!;
+  const s = mean(data.sigma.subarray(n - k));
+  return top > before && top > median + 3 * s;
+}
+
+function edgeStart(x: Float64Array): number {
+  return (x[x.length - 1]! - x[0]!) / 12;
 }
 
 /**
  * Fits bands to data y at wavenumbers x (cm⁻¹; any order, any spacing).
  *
- * @throws {RangeError} For fewer points than parameters.
- */
-function fitOnce(
-  xIn: ArrayLike<number>,
-  yIn: ArrayLike<number>,
-  options: FitOptions = {},
-  ordinate: BandFit["ordinate"] = "absorbance",
-): BandFit {
-  const order = Array.from({ length: xIn.length }, (_, i) => i).sort((a, b) => xIn[a]! - xIn[b]!);
-  let x = Float64Array.from(order, (i) => xIn[i]!);
-  let y = Float64Array.from(order, (i) => yIn[i]!);
-  if (options.rangeCm1) {
-    const [lo, hi] = options.rangeCm1;
-    const keep = [...x].map((v, i) => (v >= lo && v <= hi ? i : -1)).filter((i) => i >= 0);
-    x = Float64Array.from(keep, (i) => x[i]!);
-    y = Float64Array.from(keep, (i) => y[i]!);
-  }
-  const n = x.length;
-  const noiseSigma = estimateNoise(uniformResample(x, y).y);
-  const candidates = (options.candidates ?? detectBands(x, y))
-    .slice()
-    .sort((a, b) => b.height * b.fwhmCm1 - a.height * a.fwhmCm1)
-    .slice(0, options.maxBands ?? 8)
-    .sort((a, b) => a.centerCm1 - b.centerCm1);
-  const narrow = options.lorentzianBelowCm1 ?? 150;
-  const layout: ModelLayout = {
-    shapes: candidates.map((c) => (c.fwhmCm1 < narrow ? "lorentzian" : "gaussian")),
-    mid: (x[0]! + x[n - 1]!) / 2,
-    half: Math.max((x[n - 1]! - x[0]!) / 2, 1),
-    baselineTerms: options.baselineTerms ?? ["b0", "b1", "scatter"],
-  };
-  const p = parameterCount(layout);
-  if (n <= p) {
-    throw new RangeError(
-      `Cannot fit ${candidates.length} bands: only ${n} points for ${p} parameters`,
-    );
-  }
-  const free = [...x].map((nu) => {
-    if (options.baselineWindowsCm1) {
-      return options.baselineWindowsCm1.some(([a, b]) => nu >= a && nu <= b);
-    }
-    return candidates.every((c) => Math.abs(nu - c.centerCm1) > 1.5 * c.fwhmCm1);
-  });
-  const baseStart = linearBaselineStart(x, y, free, layout);
-  const start = new Float64Array(p), lower = new Float64Array(p), upper = new Float64Array(p);
-  const span = x[n - 1]! - x[0]!;
-  const minStep = span / (n - 1);
-  candidates.forEach((c, b) => {
-    start.set([Math.max(c.height, 1e-9), c.centerCm1, c.fwhmCm1], 3 * b);
-    lower.set([0, x[0]!, 2 * minStep], 3 * b);
-    upper.set([Infinity, x[n - 1]!, Math.max(span, 4 * c.fwhmCm1)], 3 * b);
-  });
-  baseStart.forEach((v, k) => {
-    start[3 * candidates.length + k] = v;
-    lower[3 * candidates.length + k] = -Infinity;
-    upper[3 * candidates.length + k] = Infinity;
-  });
-  // weights 1/σᵢ² from the local noise (relative weights: the covariance is still scaled by
-  // the residual variance), so dark, noisy stretches of absorbance do not steer the fit
-  const weights = localNoise(y).map((v) => 1 / (v * v));
-  const fit = levenbergMarquardt(
-    y,
-    (params, out, jac) => evaluateModel(x, params, layout, out, jac),
-    start,
-    { lower, upper, weights },
-  );
-  const cov = fit.covariance;
-  const bands: FittedBand[] = candidates.map((_, b) => {
-    const [h, c, f] = [fit.params[3 * b]!, fit.params[3 * b + 1]!, fit.params[3 * b + 2]!];
-    const [sh, sc, sf] = [fit.sigmas[3 * b]!, fit.sigmas[3 * b + 1]!, fit.sigmas[3 * b + 2]!];
-    const shape = layout.shapes[b]!;
-    const k = bandArea(1, 1, shape);
-    const covHf = cov[(3 * b) * p + 3 * b + 2]!;
-    const areaVar = k * k * (f * f * sh * sh + h * h * sf * sf + 2 * h * f * covHf);
-    return {
-      shape,
-      centerCm1: c,
-      centerCm1Sigma: sc,
-      centerNm: 1e7 / c,
-      centerNmSigma: (1e7 / (c * c)) * sc,
-      fwhmCm1: f,
-      fwhmCm1Sigma: sf,
-      height: h,
-      heightSigma: sh,
-      area: bandArea(h, f, shape),
-      areaSigma: Math.sqrt(Math.max(areaVar, 0)),
-    };
-  });
-  const bp = (term: ModelLayout["baselineTerms"][number]) => {
-    const i = layout.baselineTerms.indexOf(term);
-    return i < 0 ? 0 : fit.params[3 * candidates.length + i]!;
-  };
-  const model = new Float64Array(n);
-  evaluateModel(x, fit.params, layout, model);
-  return {
-    bands,
-    baseline: {
-      b0: bp("b0"),
-      b1: bp("b1"),
-      b2: bp("b2"),
-      scatter: bp("scatter"),
-      midCm1: layout.mid,
-      halfCm1: layout.half,
-    },
-    residualRms: Math.sqrt(model.reduce((sum, m, i) => sum + (y[i]! - m) ** 2, 0) / n),
-    noiseSigma,
-    converged: fit.converged,
-    iterations: fit.iterations,
-    ordinate,
-    curve: { cm1: x, data: y, model },
-  };
-}
-
-/** Detected bands whose fitted height is below this many standard errors are dropped and the fit redone (common practice). */
-export const MIN_BAND_SIGNIFICANCE = 3;
-
-/**
- * Fits bands to data y at wavenumbers x (cm⁻¹; any order, any spacing). Automatically detected
- * bands that the fit cannot tell from zero (height < 3σ) are dropped and the fit redone.
- *
- * @throws {RangeError} For fewer points than parameters.
+ * @param ordinate What y holds (reported back; decadic absorbance or α in cm⁻¹).
+ * @throws {RangeError} For fewer fitted points than parameters.
+ * @example Two Gaussian bands given as starts
+ * ```ts
+ * import { fitBandsCm1 } from "./fit_bands.ts";
+ * const x = Array.from({ length: 400 }, (_, i) => 12000 + 40 * i);
+ * const g = (v: number, c: number, f: number) => Math.exp(-4 * Math.LN2 * ((v - c) / f) ** 2);
+ * const y = x.map((v) => 0.02 + 0.8 * g(v, 18000, 2800) + 1.1 * g(v, 24600, 3200));
+ * const fit = fitBandsCm1(x, y, {
+ *   candidates: [18200, 24300].map((c) => ({ centerCm1: c, fwhmCm1: 3000, height: 1, significance: 10 })),
+ *   sigma: x.map(() => 1e-3),
+ * });
+ * if (Math.abs(fit.bands[0]!.centerCm1 - 18000) > 1) throw new Error("centre");
+ * ```
  */
 export function fitBandsCm1(
   xIn: ArrayLike<number>,
@@ -262,34 +232,265 @@ export function fitBandsCm1(
   options: FitOptions = {},
   ordinate: BandFit["ordinate"] = "absorbance",
 ): BandFit {
-  let fit = fitOnce(xIn, yIn, options, ordinate);
-  if (options.candidates) return fit;
-  for (let round = 0; round < 3; round++) {
-    const keep = fit.bands.filter((b) => b.height >= MIN_BAND_SIGNIFICANCE * b.heightSigma);
-    if (keep.length === fit.bands.length || keep.length === 0) break;
-    const candidates = keep.map((b) => ({
-      centerCm1: b.centerCm1,
-      fwhmCm1: b.fwhmCm1,
-      height: b.height,
-      significance: b.height / b.heightSigma,
-    }));
-    fit = fitOnce(xIn, yIn, { ...options, candidates }, ordinate);
+  const prep = prepare(xIn, yIn, options);
+  const { data } = prep;
+  const n = data.x.length;
+  const narrow = options.lorentzianBelowCm1 ?? 150;
+  const maxBands = options.maxBands ?? 8;
+  const baselineTerms = options.baselineTerms ?? ["b0", "b1", "scatter"];
+  const spec = (bands: BandStart[], edge: boolean): ModelSpec => {
+    const s: ModelSpec = { bands, baselineTerms, minFwhmCm1: prep.minFwhm };
+    if (edge) s.edgeWidthCm1 = edgeStart(data.x);
+    return s;
+  };
+  const tried: { fit: ModelFit; aic: number; bic: number }[] = [];
+  const attempt = (s: ModelSpec) => {
+    if (n <= 2 * s.bands.length + s.bands.length + baselineTerms.length + 2) return undefined;
+    const fit = fitModel(data, s);
+    const entry = { fit, ...criterion(fit, n) };
+    tried.push(entry);
+    return entry;
+  };
+  const edgeOption = options.edge ?? (options.candidates ? false : "auto");
+  let best: { fit: ModelFit; aic: number; bic: number } | undefined;
+  if (options.candidates) {
+    const bands = startsFrom(options.candidates.slice(0, maxBands), narrow);
+    const p = 3 * bands.length + baselineTerms.length + (edgeOption === true ? 2 : 0);
+    if (n <= p) {
+      throw new RangeError(
+        `Cannot fit ${bands.length} bands: only ${n} points for ${p} parameters`,
+      );
+    }
+    best = attempt(spec(bands, edgeOption === true));
+  } else {
+    type Entry = NonNullable<ReturnType<typeof attempt>>;
+    // drop bands the data cannot tell from zero, one refit at a time
+    const prune = (e: Entry | undefined): Entry | undefined => {
+      for (let round = 0; e && round < 8; round++) {
+        if (!e.fit.bands.some(insignificant)) break;
+        const bands = startsOf(e.fit).filter((_, k) => !insignificant(e!.fit.bands[k]!));
+        e = attempt({ ...e.fit.spec, bands });
+      }
+      return e;
+    };
+    // an edge term must absorb (positive amplitude) to be an edge
+    const valid = (e: Entry | undefined): e is Entry =>
+      e !== undefined && !(e.fit.baseline.edge && !(e.fit.baseline.edge.amplitude > 0));
+    /** Pruned, and refitted without the edge term when that term came out negative. */
+    const settle = (s: ModelSpec): Entry | undefined => {
+      const e = prune(attempt(s));
+      if (!e || edgeOption !== "auto" || valid(e)) return e;
+      const plain: ModelSpec = { ...(e as Entry).fit.spec };
+      delete plain.edgeWidthCm1;
+      return prune(attempt(plain));
+    };
+    const bands = startsFrom(detectOn(prep, maxBands), narrow);
+    const edges = edgeOption === "auto" ? (climbsAtTop(data) ? [false, true] : [false]) : [
+      edgeOption,
+    ];
+    for (const edge of edges) {
+      const e = settle(spec(bands, edge));
+      if (valid(e) && (!best || e.bic < best.bic)) best = e;
+    }
+    if (!best) {
+      throw new RangeError(`Cannot fit bands: only ${n} usable points`);
+    }
+    for (let round = 0; round < MAX_ROUNDS; round++) {
+      const residual = data.y.map((v, i) => v - best!.fit.model[i]!);
+      const feature = residualStructure(data.x, residual, data.sigma).features[0];
+      if (!feature) break;
+      const current = startsOf(best.fit);
+      const larger: BandStart[][] = [];
+      if (current.length < maxBands) {
+        const width = Math.max(
+          prep.minFwhm(feature.centerCm1),
+          0.6 * (feature.toCm1 - feature.fromCm1),
+        );
+        // a new band on top of an existing one is a split, not an addition
+        const crowded = current.some((b) =>
+          Math.abs(b.centerCm1 - feature.centerCm1) < 0.25 * Math.max(b.fwhmCm1, width)
+        );
+        if (!crowded) {
+          larger.push(
+            [...current, {
+              centerCm1: feature.centerCm1,
+              fwhmCm1: width,
+              shape: width < narrow ? "lorentzian" as const : "gaussian" as const,
+            }].sort((a, b) => a.centerCm1 - b.centerCm1),
+          );
+        }
+        // a band at the resolution cap cannot be split
+        const near = current
+          .map((b, k) => ({ k, d: Math.abs(b.centerCm1 - feature.centerCm1) / b.fwhmCm1 }))
+          .filter((e) => e.d < 1 && !best!.fit.bands[e.k]!.held?.includes("fwhmCm1"))
+          .sort((a, b) => a.d - b.d)[0];
+        if (near) {
+          const b = current[near.k]!;
+          const split: BandStart[] = [-0.3, 0.3].map((s) => ({
+            centerCm1: b.centerCm1 + s * b.fwhmCm1,
+            fwhmCm1: 0.7 * b.fwhmCm1,
+            shape: b.shape,
+          }));
+          larger.push(
+            [...current.filter((_, k) => k !== near.k), ...split].sort((a, c) =>
+              a.centerCm1 - c.centerCm1
+            ),
+          );
+        }
+      }
+      let bestTry: Entry | undefined;
+      for (const bands2 of larger) {
+        const e = settle({ ...best.fit.spec, bands: bands2 });
+        if (!valid(e) || !e.fit.converged) continue;
+        if (!bestTry || e.bic < bestTry.bic) bestTry = e;
+      }
+      if (!bestTry || !(bestTry.bic < best.bic)) break;
+      best = bestTry;
+    }
   }
-  return fit;
+  if (!best) throw new RangeError(`Cannot fit bands: only ${n} usable points`);
+  return toBandFit(best.fit, data, ordinate, tried, best.fit);
+}
+
+function toBandFit(
+  fit: ModelFit,
+  data: FitData,
+  ordinate: BandFit["ordinate"],
+  tried: { fit: ModelFit; aic: number; bic: number }[],
+  chosen: ModelFit,
+): BandFit {
+  const n = data.x.length;
+  let rss = 0, noise = 0;
+  const residual = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    residual[i] = data.y[i]! - fit.model[i]!;
+    rss += residual[i]! ** 2;
+    noise += data.sigma[i]! ** 2;
+  }
+  const structure = residualStructure(data.x, residual, data.sigma);
+  const warnings: string[] = [];
+  if (!fit.converged) {
+    warnings.push(
+      `fit did not converge after ${fit.iterations} iterations: centres and widths are not reliable`,
+    );
+  }
+  for (const b of fit.bands) {
+    if (b.held?.includes("fwhmCm1")) {
+      warnings.push(
+        `band near ${b.centerNm.toFixed(1)} nm: width held at a bound (${
+          b.fwhmCm1.toFixed(0)
+        } cm⁻¹), given without σ`,
+      );
+    }
+  }
+  for (const f of structure.features.slice(0, 3)) {
+    const nm = (1e7 / f.centerCm1).toFixed(0);
+    warnings.push(
+      f.sign > 0
+        ? `residual above noise near ${nm} nm: an unresolved band?`
+        : `residual below the model near ${nm} nm: a band shape or baseline the model lacks?`,
+    );
+  }
+  return {
+    bands: fit.bands,
+    baseline: fit.baseline,
+    residualRms: Math.sqrt(rss / n),
+    noiseSigma: Math.sqrt(noise / n),
+    reducedChi2: fit.chi2 / Math.max(1, n - fit.parameters),
+    converged: fit.converged,
+    iterations: fit.iterations,
+    ordinate,
+    criterion: "BIC",
+    models: tried.map((t) => ({
+      bands: t.fit.bands.length,
+      edge: t.fit.spec.edgeWidthCm1 !== undefined,
+      parameters: t.fit.parameters,
+      chi2: t.fit.chi2,
+      aic: t.aic,
+      bic: t.bic,
+      chosen: t.fit === chosen,
+    })),
+    runsZ: structure.runsZ,
+    warnings,
+    curve: { cm1: data.x, data: data.y, model: fit.model, sigma: data.sigma },
+  };
+}
+
+/** Options of {@linkcode fitSpectrumBands}. */
+export interface SpectrumFitOptions extends FitOptions, UsableRangeOptions {
+  /** Wavelength range to fit, nm (default the whole spectrum). */
+  rangeNm?: [number, number];
+  /** Instrument resolution (FWHM), nm; no band is fitted narrower. Default 2 grid steps. */
+  resolutionNm?: number;
+}
+
+/** Noise σ and usable points of a spectrum's fitted ordinate (absorbance or α). */
+export function spectrumNoise(
+  spectrum: Spectrum,
+  options: UsableRangeOptions = {},
+): {
+  values: Float64Array<ArrayBuffer>;
+  sigma: Float64Array<ArrayBuffer>;
+  usable: ReturnType<typeof usableRange>;
+  ordinate: BandFit["ordinate"];
+} {
+  const alpha = spectrum.quantity === "alpha";
+  const d = spectrum.thicknessMm;
+  const absorbance = !alpha || (d !== undefined && d > 0)
+    ? spectrumAbsorbance(spectrum)
+    : undefined;
+  const values = alpha ? spectrum.values.slice() : absorbance!;
+  const usable = usableRange(spectrum.wavelengthNm, spectrum.values, absorbance, options);
+  // propagated photometric gain |∂y/∂T|: 1/(T ln 10) for absorbance, 1/(T d) for α
+  const gain = absorbance
+    ? Float64Array.from(absorbance, (a) => {
+      const t = 10 ** -Math.min(a, 8);
+      return alpha ? 1 / (t * (d! / 10)) : 1 / (t * Math.LN10);
+    })
+    : undefined;
+  // the gain at the smoothed ordinate: the measured one is itself noisy where T is small
+  let smoothGain = gain;
+  if (gain && absorbance) {
+    const smoothA = Float64Array.from(absorbance);
+    for (let i = 3; i < smoothA.length - 3; i++) {
+      let s = 0;
+      for (let k = -3; k <= 3; k++) s += absorbance[i + k]!;
+      smoothA[i] = s / 7;
+    }
+    smoothGain = Float64Array.from(smoothA, (a) => {
+      const t = 10 ** -Math.min(a, 8);
+      return alpha ? 1 / (t * (d! / 10)) : 1 / (t * Math.LN10);
+    });
+  }
+  // α without a thickness: T is unknown, so the noise is modelled as σ² = a + b·α², growing
+  // with α as it does where α comes from a falling T (our choice)
+  if (!smoothGain) {
+    const { smooth } = smoothResidual(values);
+    smoothGain = Float64Array.from(smooth, (v) => Math.abs(v));
+  }
+  const noise = ordinateNoise(values, smoothGain, usable.usable);
+  return { values, sigma: noise.sigma, usable, ordinate: alpha ? "alpha" : "absorbance" };
 }
 
 /**
- * Fits the bands of a spectrum: α when the spectrum holds α, else decadic absorbance as measured.
+ * Fits the bands of a spectrum on its usable range: α when the spectrum holds α, else decadic
+ * absorbance as measured; weights from the propagated photometric noise.
  *
- * @param rangeNm Wavelength range to fit (default the whole spectrum).
+ * @param noise The spectrum's noise and usable range when already known (from {@linkcode spectrumNoise}).
  */
 export function fitSpectrumBands(
   spectrum: Spectrum,
-  options: FitOptions & { rangeNm?: [number, number] } = {},
+  options: SpectrumFitOptions = {},
+  noise: ReturnType<typeof spectrumNoise> = spectrumNoise(spectrum, options),
 ): BandFit {
-  const y = spectrum.quantity === "alpha" ? spectrum.values : spectrumAbsorbance(spectrum);
   const x = spectrum.wavelengthNm.map((nm) => 1e7 / nm);
-  const opts: FitOptions = { ...options };
+  const opts: FitOptions = { ...options, sigma: noise.sigma, usable: noise.usable.usable };
   if (options.rangeNm) opts.rangeCm1 = [1e7 / options.rangeNm[1], 1e7 / options.rangeNm[0]];
-  return fitBandsCm1(x, y, opts, spectrum.quantity === "alpha" ? "alpha" : "absorbance");
+  if (options.resolutionNm !== undefined && options.minFwhmCm1 === undefined) {
+    const r = options.resolutionNm;
+    opts.minFwhmCm1 = (c) => (c * c * r) / 1e7;
+  }
+  const fit = fitBandsCm1(x, noise.values, opts, noise.ordinate);
+  fit.excluded = noise.usable.excluded;
+  return fit;
 }

@@ -52,6 +52,18 @@ function baseName(file: string): string {
   return name.replace(/\.[^.]+$/, "") || name;
 }
 
+/** Words of a header that only names a quantity or unit, never a sample (our list). */
+const GENERIC_WORDS = new Set(
+  "a abs absorbance absorption alpha arb au coeff coefficient cm data decadic e fraction intensity ln log mm natural nm od pct per percent r refl reflectance signal t trans transmission transmittance u um unit units value values y µm 1 10"
+    .split(" "),
+);
+
+/** True when a header reading's name is made only of quantity and unit words, e.g. `alpha_cm-1`. */
+function isGenericName(name: string): boolean {
+  const words = name.toLowerCase().split(/[^a-z0-9µ]+/).filter(Boolean);
+  return words.length > 0 && words.every((w) => GENERIC_WORDS.has(w));
+}
+
 function findField(fields: Record<string, string>, pattern: RegExp): string | undefined {
   const key = Object.keys(fields).find((k) => pattern.test(k));
   return key === undefined ? undefined : fields[key];
@@ -323,7 +335,11 @@ export function spectraFromTable(
       if (!asIs) values[k] = v;
     }
     const multi = width > 2;
-    const sample = reading.name ?? (multi ? undefined : sampleField) ??
+    // a single data column is named after its file unless the header names a sample
+    const headerName = !multi && reading.name && isGenericName(reading.name)
+      ? undefined
+      : reading.name;
+    const sample = headerName ?? (multi ? undefined : sampleField) ??
       (multi ? `${baseName(file)}#${c}` : baseName(file));
     const meta: SpectrumMeta = {
       sample,

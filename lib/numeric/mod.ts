@@ -1,5 +1,5 @@
 /**
- * Numerical building blocks: least squares, simplex minimisation, Student t, smoothing.
+ * Numerical building blocks: least squares (incl. variable projection), simplex minimisation, Student t, smoothing, rounding.
  *
  * @module
  */
@@ -7,4 +7,5 @@ export * from "./levenberg_marquardt.ts";
 export * from "./nelder_mead.ts";
 export * from "./student_t.ts";
 export * from "./savitzky_golay.ts";
+export * from "./variable_projection.ts";
 export * from "./round.ts";

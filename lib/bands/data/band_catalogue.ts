@@ -1,8 +1,10 @@
 /**
  * Known absorption bands of dopant ions in oxide hosts (room temperature, approximate).
- * Every entry carries its source; `status` says whether the figure was confirmed in public
- * material ("published") or is recalled ("from memory, unverified"). Positions and widths are
- * for assignment hints, never check values.
+ * Every entry carries its source; `status` says whether the position was confirmed in public
+ * material ("published": the source was read for this entry, 2026-12-02) or is recalled
+ * ("from memory, unverified"). Widths are rough in every case. Positions and widths are for
+ * assignment hints, never check values; an unverified entry never makes a hint on its own
+ * (see assign_bands.ts).
  *
  * @module
  */
@@ -16,6 +18,10 @@ export interface CatalogueBand {
   fwhmCm1: number;
   /** Polarisation behaviour in words (E⊥c = ordinary ray, E∥c = extraordinary). */
   polarisation: string;
+  /** When the position holds for one polarisation only: "o" (E⊥c) or "e" (E∥c). */
+  ray?: "o" | "e";
+  /** A component seen only beside another band of the same ion: that band's transition. */
+  requires?: string;
   source: string;
   status: "published" | "from memory, unverified";
 }
@@ -25,12 +31,12 @@ export const BAND_CATALOGUE: CatalogueBand[] = [
     ion: "Cr3+",
     host: "corundum",
     transition: "4A2→4T2 (U band)",
-    centerCm1: 18000,
+    centerCm1: 18300,
     fwhmCm1: 2800,
-    polarisation: "E⊥c ≈ 555 nm, E∥c ≈ 565 nm, stronger E⊥c",
+    polarisation: "E⊥c ≈ 555 nm, E∥c ≈ 565 nm, stronger E⊥c (from memory)",
     source:
-      "crystal-field fit Dq 1830, B 732 cm⁻¹: Reddy & Rama Moorthy, Pramana 19, 449 (1982); band figures",
-    status: "from memory, unverified",
+      "U band assigned to 4T2, E(4T2) = 10Dq with Dq 1830 cm⁻¹ fitted to the observed bands: Reddy & Rama Moorthy, Pramana 19, 449 (1982); width from memory",
+    status: "published",
   },
   {
     ion: "Cr3+",
@@ -53,34 +59,60 @@ export const BAND_CATALOGUE: CatalogueBand[] = [
     status: "from memory, unverified",
   },
   {
+    ion: "Cr3+",
+    host: "corundum",
+    transition: "4A2→2T2 (B1, B2 lines)",
+    centerCm1: 21030,
+    fwhmCm1: 40,
+    polarisation: "B1 20,993 cm⁻¹, B2 21,068 cm⁻¹ (at 2 K); width from memory",
+    source:
+      "Magnetic- and electric-field effects of the B1 and B2 lines in ruby, Phys. Rev. 135, A950 (1964)",
+    status: "published",
+  },
+  {
     ion: "Ti3+",
     host: "corundum",
     transition: "2T2→2E (Jahn–Teller split)",
     centerCm1: 20400,
     fwhmCm1: 5000,
-    polarisation: "π (E∥c) ≈ 2× σ; shoulder near 550–560 nm",
-    source: "Moulton et al., Opt. Mater. Express 9, 2216 (2019)",
+    polarisation: "π (E∥c) ≈ 2× σ (from memory); shoulder near 560 nm",
+    source:
+      "pump band peaking at 490 nm: Moulton et al., Opt. Mater. Express 9, 2216 (2019); width from memory",
     status: "published",
   },
   {
     ion: "Ti3+",
     host: "corundum",
     transition: "2T2→2E upper component",
-    centerCm1: 18000,
+    centerCm1: 17860,
     fwhmCm1: 4000,
-    polarisation: "shoulder of the 490 nm band",
-    source: "Moulton et al., Opt. Mater. Express 9, 2216 (2019)",
-    status: "from memory, unverified",
+    polarisation: "shoulder of the 490 nm band, near 560 nm",
+    requires: "2T2→2E (Jahn–Teller split)",
+    source:
+      "peaks at 485 and 560 nm typical of Ti3+ in corundum, as cited from Gems & Gemology (after McClure 1962; Townsend 1968); width from memory",
+    status: "published",
   },
   {
-    ion: "Ti3+/Ti4+",
+    ion: "Ti3+ (pairs)",
     host: "corundum",
-    transition: "residual infrared absorption (pairs)",
-    centerCm1: 12300,
+    transition: "residual near-infrared absorption",
+    centerCm1: 12500,
     fwhmCm1: 4000,
-    polarisation: "limits laser figure of merit",
-    source: "Moulton et al., Opt. Mater. Express 9, 2216 (2019)",
-    status: "from memory, unverified",
+    polarisation: "limits the laser figure of merit",
+    source:
+      "weak broad absorption peaking near 800 nm, lower limit set by Ti3+ pairs: Moulton et al., Opt. Mater. Express 9, 2216 (2019); width from memory",
+    status: "published",
+  },
+  {
+    ion: "Ti3+ (pairs)",
+    host: "corundum",
+    transition: "pair absorption ∝ [Ti3+]²",
+    centerCm1: 23500,
+    fwhmCm1: 4000,
+    polarisation: "",
+    source:
+      "absorption centred around 400–450 nm growing as the square of the Ti3+ level: Moulton et al., Opt. Mater. Express 9, 2216 (2019); width from memory",
+    status: "published",
   },
   {
     ion: "Fe3+",
@@ -93,9 +125,9 @@ export const BAND_CATALOGUE: CatalogueBand[] = [
     status: "from memory, unverified",
   },
   {
-    ion: "Fe3+ pair",
+    ion: "Fe3+",
     host: "corundum",
-    transition: "pair band",
+    transition: "Fe3+–Fe3+ pair band",
     centerCm1: 25800,
     fwhmCm1: 600,
     polarisation: "weak dichroism",
@@ -113,9 +145,9 @@ export const BAND_CATALOGUE: CatalogueBand[] = [
     status: "from memory, unverified",
   },
   {
-    ion: "Fe3+ pair",
+    ion: "Fe3+",
     host: "corundum",
-    transition: "pair band",
+    transition: "Fe3+–Fe3+ pair band",
     centerCm1: 17600,
     fwhmCm1: 1500,
     polarisation: "",
@@ -126,11 +158,56 @@ export const BAND_CATALOGUE: CatalogueBand[] = [
     ion: "Fe2+–Ti4+",
     host: "corundum",
     transition: "intervalence charge transfer",
-    centerCm1: 17500,
+    centerCm1: 17760,
     fwhmCm1: 4500,
-    polarisation: "E⊥c ≈ 565–580 nm, E∥c ≈ 700–720 nm",
+    polarisation: "unpolarised or E⊥c; E∥c lies lower, see the two entries below",
+    source:
+      "broad band at 563 nm from Fe2+–Ti4+ charge transfer in heat-treated sapphire (study on low-temperature heat treatment of purplish red sapphire); first explained by Townsend, Solid State Commun. 6, 81 (1968); width from memory",
+    status: "published",
+  },
+  {
+    ion: "Fe2+–Ti4+",
+    host: "corundum",
+    transition: "intervalence charge transfer, E⊥c",
+    centerCm1: 17400,
+    fwhmCm1: 4500,
+    polarisation: "E⊥c ≈ 565–580 nm",
+    ray: "o",
     source: "Townsend, Solid State Commun. 6, 81 (1968)",
     status: "from memory, unverified",
+  },
+  {
+    ion: "Fe2+–Ti4+",
+    host: "corundum",
+    transition: "intervalence charge transfer, E∥c",
+    centerCm1: 14100,
+    fwhmCm1: 4500,
+    polarisation: "E∥c ≈ 700–720 nm",
+    ray: "e",
+    source: "Townsend, Solid State Commun. 6, 81 (1968)",
+    status: "from memory, unverified",
+  },
+  {
+    ion: "V3+",
+    host: "corundum",
+    transition: "d–d band near 418 nm",
+    centerCm1: 23920,
+    fwhmCm1: 3000,
+    polarisation: "",
+    source:
+      "absorption peak at 418 nm from V3+ d–d transitions: blue sapphires of the Baw-Mar mine, Mogok, Crystals (2021); width from memory",
+    status: "published",
+  },
+  {
+    ion: "Ni2+",
+    host: "corundum",
+    transition: "band near 946 nm",
+    centerCm1: 10570,
+    fwhmCm1: 2500,
+    polarisation: "",
+    source:
+      "946 nm absorption from Ni2+: blue sapphires of the Baw-Mar mine, Mogok, Crystals (2021); width from memory",
+    status: "published",
   },
   {
     ion: "V3+",

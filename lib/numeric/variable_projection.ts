@@ -1,0 +1,396 @@
+/**
+ * Separable nonlinear least squares by variable projection (Golub & Pereyra, SIAM J. Numer.
+ * Anal. 10, 413 (1973)): for a model y ≈ Σⱼ cⱼ φⱼ(x; θ) the linear coefficients c are solved
+ * exactly (weighted QR) for every θ, and only θ is iterated, by Levenberg–Marquardt on the
+ * projected residual with the Golub–Pereyra Jacobian (both terms, not Kaufman's shortcut).
+ * Standard errors come from the covariance s²·(JᵀWJ)⁻¹ of the full, unseparated model at the
+ * optimum, s² = RSS/(n − p); parameters held at a bound are left out of it and reported as held.
+ *
+ * @module
+ */
+import { invertSpd } from "./levenberg_marquardt.ts";
+
+/**
+ * A separable model. Each nonlinear parameter θₖ acts on one basis column `columnOf[k]` (as
+ * a band's centre and width act on that band only), which keeps the Jacobian cheap.
+ */
+export interface SeparableModel {
+  /** Number of linear coefficients m (basis columns). */
+  linearCount: number;
+  /** Basis column each nonlinear parameter acts on (length q). */
+  columnOf: ArrayLike<number>;
+  /**
+   * Fills `phi` (column-major n×m: phi[j·n + i] = φⱼ(xᵢ; θ)) and, when given, `dphi`
+   * (column-major n×q: dphi[k·n + i] = ∂φ_columnOf[k](xᵢ; θ)/∂θₖ).
+   */
+  basis: (theta: Float64Array, phi: Float64Array, dphi?: Float64Array) => void;
+}
+
+/** Options of {@linkcode variableProjection}. */
+export interface VarProOptions {
+  lower?: ArrayLike<number>;
+  upper?: ArrayLike<number>;
+  /** Weights 1/σᵢ² (default all 1). */
+  weights?: ArrayLike<number>;
+  /** @default 200 */
+  maxIterations?: number;
+  /** Stop when the relative RSS decrease of an accepted step falls below this. @default 1e-10 */
+  tolerance?: number;
+}
+
+/** Result of {@linkcode variableProjection}. */
+export interface VarProResult {
+  /** Nonlinear parameters θ at the optimum. */
+  nonlinear: Float64Array;
+  /** Linear coefficients c at the optimum. */
+  linear: Float64Array;
+  /** Covariance of [θ, c] (row-major (q+m)²); rows/columns of held parameters are 0. */
+  covariance: Float64Array;
+  /** Standard errors of [θ, c]; null for held parameters or an undetermined covariance. */
+  sigmas: (number | null)[];
+  /** True for each nonlinear parameter that ended at a bound (held, out of the covariance). */
+  held: boolean[];
+  /** Weighted residual sum of squares. */
+  rss: number;
+  /** The model at the optimum (unweighted), length n. */
+  model: Float64Array;
+  iterations: number;
+  converged: boolean;
+}
+
+/** Linear least squares for fixed θ by modified Gram–Schmidt with reorthogonalisation. */
+class LinearSolve {
+  readonly q: Float64Array;
+  readonly r: Float64Array;
+  readonly c: Float64Array;
+  readonly res: Float64Array;
+  readonly qtb: Float64Array;
+  readonly ok: Uint8Array;
+  constructor(readonly n: number, readonly m: number) {
+    this.q = new Float64Array(n * m);
+    this.r = new Float64Array(m * m);
+    this.c = new Float64Array(m);
+    this.res = new Float64Array(n);
+    this.qtb = new Float64Array(m);
+    this.ok = new Uint8Array(m);
+  }
+  /** Factorises A (column-major, weighted) and solves for b; columns that add nothing get c = 0. */
+  solve(a: Float64Array, b: Float64Array): void {
+    const { n, m, q, r, c, res, qtb, ok } = this;
+    r.fill(0);
+    for (let j = 0; j < m; j++) {
+      let norm0 = 0;
+      for (let i = 0; i < n; i++) {
+        const v = a[j * n + i]!;
+        q[j * n + i] = v;
+        norm0 += v * v;
+      }
+      for (let pass = 0; pass < 2; pass++) {
+        for (let k = 0; k < j; k++) {
+          if (!ok[k]) continue;
+          let s = 0;
+          for (let i = 0; i < n; i++) s += q[k * n + i]! * q[j * n + i]!;
+          r[k * m + j] = r[k * m + j]! + s;
+          for (let i = 0; i < n; i++) q[j * n + i] = q[j * n + i]! - s * q[k * n + i]!;
+        }
+      }
+      let norm = 0;
+      for (let i = 0; i < n; i++) norm += q[j * n + i]! ** 2;
+      // a column (nearly) inside the span of the others carries no information of its own
+      if (!(norm > 1e-24 * Math.max(norm0, 1e-300))) {
+        ok[j] = 0;
+        for (let i = 0; i < n; i++) q[j * n + i] = 0;
+        continue;
+      }
+      ok[j] = 1;
+      const d = Math.sqrt(norm);
+      r[j * m + j] = d;
+      for (let i = 0; i < n; i++) q[j * n + i] = q[j * n + i]! / d;
+    }
+    for (let i = 0; i < n; i++) res[i] = b[i]!;
+    for (let j = 0; j < m; j++) {
+      if (!ok[j]) {
+        qtb[j] = 0;
+        continue;
+      }
+      let s = 0;
+      for (let i = 0; i < n; i++) s += q[j * n + i]! * b[i]!;
+      qtb[j] = s;
+      for (let i = 0; i < n; i++) res[i] = res[i]! - s * q[j * n + i]!;
+    }
+    for (let j = m - 1; j >= 0; j--) {
+      if (!ok[j]) {
+        c[j] = 0;
+        continue;
+      }
+      let s = qtb[j]!;
+      for (let k = j + 1; k < m; k++) if (ok[k]) s -= r[j * m + k]! * c[k]!;
+      c[j] = s / r[j * m + j]!;
+    }
+  }
+  /** z = R⁻ᵀ eⱼ (zero for dropped columns). */
+  rInvTransposeUnit(j: number, z: Float64Array): void {
+    const { m, r, ok } = this;
+    z.fill(0);
+    if (!ok[j]) return;
+    for (let i = 0; i < m; i++) {
+      if (!ok[i]) continue;
+      let s = i === j ? 1 : 0;
+      for (let k = 0; k < i; k++) if (ok[k]) s -= r[k * m + i]! * z[k]!;
+      z[i] = s / r[i * m + i]!;
+    }
+  }
+}
+
+/** Solves the p×p system (A + λ·diag A) x = b by Cholesky; false when not positive definite. */
+function dampedSolve(
+  a: Float64Array,
+  b: Float64Array,
+  p: number,
+  lambda: number,
+  l: Float64Array,
+  x: Float64Array,
+): boolean {
+  for (let i = 0; i < p; i++) {
+    for (let j = 0; j <= i; j++) {
+      let s = a[i * p + j]!;
+      if (i === j) s = s * (1 + lambda) + 1e-300;
+      for (let k = 0; k < j; k++) s -= l[i * p + k]! * l[j * p + k]!;
+      if (i === j) {
+        if (!(s > 0)) return false;
+        l[i * p + i] = Math.sqrt(s);
+      } else l[i * p + j] = s / l[j * p + j]!;
+    }
+  }
+  for (let i = 0; i < p; i++) {
+    let s = b[i]!;
+    for (let k = 0; k < i; k++) s -= l[i * p + k]! * x[k]!;
+    x[i] = s / l[i * p + i]!;
+  }
+  for (let i = p - 1; i >= 0; i--) {
+    let s = x[i]!;
+    for (let k = i + 1; k < p; k++) s -= l[k * p + i]! * x[k]!;
+    x[i] = s / l[i * p + i]!;
+  }
+  return true;
+}
+
+/**
+ * Minimises Σ wᵢ (yᵢ − Σⱼ cⱼ φⱼ(xᵢ; θ))² over θ (box-bounded) and c (free).
+ *
+ * @param y Data, length n.
+ * @param model The separable model.
+ * @param start Starting θ, length q (not modified).
+ * @returns The optimum, its covariance and which parameters were held at a bound.
+ * @throws {RangeError} When there are not more points than parameters.
+ * @example Misra1a-type model y = b₁(1 − e^(−b₂x)), b₁ linear
+ * ```ts
+ * import { variableProjection } from "./variable_projection.ts";
+ * const x = [1, 2, 3, 4, 5, 6];
+ * const y = Float64Array.from(x, (v) => 3 * (1 - Math.exp(-0.4 * v)));
+ * const fit = variableProjection(y, {
+ *   linearCount: 1,
+ *   columnOf: [0],
+ *   basis: (t, phi, dphi) => x.forEach((v, i) => {
+ *     phi[i] = 1 - Math.exp(-t[0]! * v);
+ *     if (dphi) dphi[i] = v * Math.exp(-t[0]! * v);
+ *   }),
+ * }, Float64Array.of(1));
+ * if (Math.abs(fit.nonlinear[0]! - 0.4) > 1e-8) throw new Error("b2");
+ * ```
+ */
+export function variableProjection(
+  y: ArrayLike<number>,
+  model: SeparableModel,
+  start: ArrayLike<number>,
+  options: VarProOptions = {},
+): VarProResult {
+  const n = y.length, m = model.linearCount, q = start.length;
+  const p = q + m;
+  if (n <= p) {
+    throw new RangeError(`Cannot fit ${p} parameters to ${n} points: need more points`);
+  }
+  const { maxIterations = 200, tolerance = 1e-10, lower, upper } = options;
+  const sw = new Float64Array(n);
+  for (let i = 0; i < n; i++) sw[i] = Math.sqrt(options.weights ? options.weights[i]! : 1);
+  const b = new Float64Array(n);
+  for (let i = 0; i < n; i++) b[i] = sw[i]! * y[i]!;
+  const col = Int32Array.from({ length: q }, (_, k) => model.columnOf[k]!);
+  const phi = new Float64Array(n * m), dphi = new Float64Array(n * q);
+  const a = new Float64Array(n * m);
+  const jac = new Float64Array(n * q);
+  const jtj = new Float64Array(q * q), jtr = new Float64Array(q);
+  const sys = new Float64Array(q * q), rhs = new Float64Array(q);
+  const l = new Float64Array(q * q), step = new Float64Array(q);
+  const z = new Float64Array(m), qtd = new Float64Array(m);
+  const theta = Float64Array.from(start), trial = new Float64Array(q);
+  const solver = new LinearSolve(n, m), trialSolver = new LinearSolve(n, m);
+  const clamp = (v: Float64Array) => {
+    for (let k = 0; k < q; k++) {
+      if (lower && v[k]! < lower[k]!) v[k] = lower[k]!;
+      if (upper && v[k]! > upper[k]!) v[k] = upper[k]!;
+    }
+  };
+  const project = (t: Float64Array, s: LinearSolve, withDerivatives: boolean): number => {
+    model.basis(t, phi, withDerivatives ? dphi : undefined);
+    for (let j = 0; j < m; j++) {
+      for (let i = 0; i < n; i++) a[j * n + i] = sw[i]! * phi[j * n + i]!;
+    }
+    s.solve(a, b);
+    let rss = 0;
+    for (let i = 0; i < n; i++) rss += s.res[i]! ** 2;
+    return rss;
+  };
+  /** Golub–Pereyra Jacobian of the projected residual: −[cⱼ P⊥ dₖ + Q R⁻ᵀ eⱼ (dₖ·r)]. */
+  const jacobian = (s: LinearSolve) => {
+    for (let k = 0; k < q; k++) {
+      const j = col[k]!, cj = s.c[j]!;
+      let dr = 0;
+      for (let i = 0; i < n; i++) {
+        const d = sw[i]! * dphi[k * n + i]!;
+        jac[k * n + i] = d;
+        dr += d * s.res[i]!;
+      }
+      for (let jj = 0; jj < m; jj++) {
+        let t = 0;
+        for (let i = 0; i < n; i++) t += s.q[jj * n + i]! * jac[k * n + i]!;
+        qtd[jj] = t;
+      }
+      s.rInvTransposeUnit(j, z);
+      for (let jj = 0; jj < m; jj++) qtd[jj] = cj * qtd[jj]! - z[jj]! * dr;
+      for (let i = 0; i < n; i++) {
+        let t = cj * jac[k * n + i]!;
+        for (let jj = 0; jj < m; jj++) t -= s.q[jj * n + i]! * qtd[jj]!;
+        jac[k * n + i] = -t;
+      }
+    }
+    for (let k = 0; k < q; k++) {
+      let g = 0;
+      for (let i = 0; i < n; i++) g += jac[k * n + i]! * s.res[i]!;
+      jtr[k] = -g;
+      for (let kk = 0; kk <= k; kk++) {
+        let t = 0;
+        for (let i = 0; i < n; i++) t += jac[k * n + i]! * jac[kk * n + i]!;
+        jtj[k * q + kk] = t;
+        jtj[kk * q + k] = t;
+      }
+    }
+  };
+  clamp(theta);
+  let rss = project(theta, solver, true);
+  let current = solver, spare = trialSolver;
+  jacobian(current);
+  // damping update by the gain ratio ρ = actual/predicted decrease (Nielsen's rule, as in
+  // Madsen, Nielsen & Tingleff, Methods for Non-Linear Least Squares Problems, 2004, §3.2),
+  // which stops the undamped zig-zag of a line only a grid step or two wide
+  let lambda = 1e-3, nu = 2, iterations = 0, converged = false;
+  const atBound = (k: number, v: number, dir: number) =>
+    (dir < 0 && lower !== undefined && v <= lower[k]!) ||
+    (dir > 0 && upper !== undefined && v >= upper[k]!);
+  while (iterations < maxIterations && q > 0) {
+    iterations++;
+    let improved = false, relative = Infinity, stepSmall = false;
+    for (let attempt = 0; attempt < 40; attempt++) {
+      // parameters at a bound that the gradient pushes outward are frozen for this step
+      sys.set(jtj);
+      rhs.set(jtr);
+      for (let k = 0; k < q; k++) {
+        if (atBound(k, theta[k]!, jtr[k]!)) {
+          for (let kk = 0; kk < q; kk++) sys[k * q + kk] = sys[kk * q + k] = 0;
+          sys[k * q + k] = 1;
+          rhs[k] = 0;
+        }
+      }
+      if (!dampedSolve(sys, rhs, q, lambda, l, step)) {
+        lambda *= nu;
+        nu *= 2;
+        continue;
+      }
+      let predicted = 0;
+      stepSmall = true;
+      for (let k = 0; k < q; k++) {
+        trial[k] = theta[k]! + step[k]!;
+        predicted += step[k]! * (rhs[k]! + lambda * sys[k * q + k]! * step[k]!);
+        if (Math.abs(step[k]!) > 1e-9 * (Math.abs(theta[k]!) + 1e-9)) stepSmall = false;
+      }
+      clamp(trial);
+      const rssTrial = project(trial, spare, true);
+      if (rssTrial < rss) {
+        relative = (rss - rssTrial) / Math.max(rss, 1e-300);
+        const rho = predicted > 0 ? (rss - rssTrial) / predicted : 1;
+        theta.set(trial);
+        rss = rssTrial;
+        [current, spare] = [spare, current];
+        lambda = Math.max(lambda * Math.max(1 / 3, 1 - (2 * rho - 1) ** 3), 1e-12);
+        nu = 2;
+        improved = true;
+        break;
+      }
+      lambda *= nu;
+      nu *= 2;
+      if (lambda > 1e14 || stepSmall) break;
+    }
+    if (!improved) {
+      // no step lowers the RSS at any damping: a (local) optimum
+      converged = true;
+      break;
+    }
+    jacobian(current);
+    if (relative < tolerance || stepSmall) {
+      converged = true;
+      break;
+    }
+  }
+  if (q === 0) converged = true;
+  // refresh the basis and derivatives at the optimum (the solver holds the last accepted θ)
+  rss = project(theta, current, true);
+  const c = current.c.slice();
+  const fitted = new Float64Array(n);
+  for (let j = 0; j < m; j++) {
+    for (let i = 0; i < n; i++) fitted[i] = fitted[i]! + c[j]! * phi[j * n + i]!;
+  }
+  const held = Array.from(
+    { length: q },
+    (_, k) =>
+      (lower !== undefined && theta[k]! <= lower[k]!) ||
+      (upper !== undefined && theta[k]! >= upper[k]!),
+  );
+  // covariance of the unseparated model: columns cⱼ ∂φⱼ/∂θₖ for θ, φⱼ for c (weighted)
+  const free: number[] = [];
+  for (let k = 0; k < q; k++) if (!held[k]) free.push(k);
+  for (let j = 0; j < m; j++) if (current.ok[j]) free.push(q + j);
+  const f = free.length;
+  const column = (idx: number, i: number) =>
+    idx < q ? sw[i]! * c[col[idx]!]! * dphi[idx * n + i]! : sw[i]! * phi[(idx - q) * n + i]!;
+  const info = new Float64Array(f * f);
+  for (let u = 0; u < f; u++) {
+    for (let v = 0; v <= u; v++) {
+      let t = 0;
+      for (let i = 0; i < n; i++) t += column(free[u]!, i) * column(free[v]!, i);
+      info[u * f + v] = t;
+      info[v * f + u] = t;
+    }
+  }
+  const s2 = rss / Math.max(1, n - f);
+  const inverse = invertSpd(info, f);
+  const covariance = new Float64Array(p * p);
+  const sigmas: (number | null)[] = new Array(p).fill(null);
+  const determined = inverse.every(Number.isFinite);
+  if (determined) {
+    free.forEach((r, u) =>
+      free.forEach((cc, v) => (covariance[r * p + cc] = inverse[u * f + v]! * s2))
+    );
+    for (const r of free) sigmas[r] = Math.sqrt(Math.max(covariance[r * p + r]!, 0));
+  }
+  return {
+    nonlinear: theta,
+    linear: c,
+    covariance,
+    sigmas,
+    held,
+    rss,
+    model: fitted,
+    iterations,
+    converged,
+  };
+}
