@@ -1,37 +1,45 @@
 /**
- * Analysis step: the band fit of the measured absorbance (or α), done once per spectrum, with
- * assignment hints from the catalogue.
+ * Analysis step: the band analysis of the measured absorbance (or α), done once per spectrum:
+ * usable range, detection, separable least-squares fit with model selection, assignment hints
+ * (lib/bands/analyse_bands.ts).
  *
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import { type BandFit, fitSpectrumBands } from "../bands/fit_bands.ts";
-import { assignBands } from "../bands/assign_bands.ts";
+import { analyseBands, type BandAnalysis } from "../bands/analyse_bands.ts";
 import type { BandsResult } from "./sample_result.ts";
 import { thinBandCurve } from "./chart_curves.ts";
 
-/** The fit (for the dopant step) and its results record, or nulls with a warning. */
+/** The analysis (for the dopant step) and its results record, or nulls with a warning. */
 export function bandsStep(
   spectrum: Spectrum,
   host: string | undefined,
   warnings: string[],
-): { fit: BandFit | null; result: BandsResult | null } {
-  let fit: BandFit;
+): { fit: BandAnalysis | null; result: BandsResult | null } {
+  let fit: BandAnalysis;
   try {
-    fit = fitSpectrumBands(spectrum);
+    fit = analyseBands(spectrum, host === undefined ? {} : { host });
   } catch (e) {
     warnings.push(`band fit skipped: ${(e as Error).message}`);
     return { fit: null, result: null };
   }
-  return {
-    fit,
-    result: {
-      ordinate: fit.ordinate,
-      bands: fit.bands,
-      baseline: fit.baseline,
-      residualRms: fit.residualRms,
-      assignments: assignBands(fit.bands, host),
-      curve: thinBandCurve(fit.curve.cm1, fit.curve.data, fit.curve.model),
-    },
+  const result: BandsResult = {
+    ordinate: fit.ordinate,
+    bands: fit.bands,
+    baseline: fit.baseline,
+    residualRms: fit.residualRms,
+    noiseSigma: fit.noiseSigma,
+    reducedChi2: fit.reducedChi2,
+    converged: fit.converged,
+    assignments: fit.assignments,
+    excluded: fit.excluded,
+    warnings: fit.warnings,
+    held: fit.held,
+    curve: thinBandCurve(fit.curve.cm1, fit.curve.data, fit.curve.model),
   };
+  if (fit.bandsAlpha) {
+    result.bandsAlpha = fit.bandsAlpha;
+    result.alphaBase = "natural";
+  }
+  return { fit, result };
 }

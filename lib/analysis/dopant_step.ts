@@ -5,7 +5,7 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import type { BandFit } from "../bands/fit_bands.ts";
+import type { BandAnalysis } from "../bands/analyse_bands.ts";
 import { predictConcentration } from "../dopant/linear_calibration.ts";
 import {
   type MetricOptions,
@@ -18,24 +18,21 @@ import {
 import type { SampleSettings } from "./sample_settings.ts";
 import type { DopantResult } from "./sample_result.ts";
 
-/** Factor from the fitted ordinate to α in cm⁻¹ (Beer–Lambert, natural log), or undefined. */
-function fitToAlpha(fit: BandFit, spectrum: Spectrum): number | undefined {
-  if (fit.ordinate === "alpha") return 1;
-  const d = spectrum.thicknessMm;
-  return d === undefined ? undefined : Math.LN10 / (d / 10);
+/** The fitted bands as α in cm⁻¹ (Beer–Lambert, natural log), or undefined. */
+function bandsAsAlpha(fit: BandAnalysis): BandAnalysis["bands"] | undefined {
+  if (fit.ordinate === "alpha") return fit.bands;
+  return fit.bandsAlpha;
 }
 
 function response(
   spectrum: Spectrum,
-  fit: BandFit | null,
+  fit: BandAnalysis | null,
   metric: ResponseMetric,
   options: MetricOptions,
 ): Response {
-  if (metric !== "alpha-at" && fit) {
-    const scale = fitToAlpha(fit, spectrum);
-    if (scale !== undefined) {
-      return responseFromBands(fit.bands, scale, metric, options, spectrum.meta.sample);
-    }
+  const alphaBands = metric !== "alpha-at" && fit ? bandsAsAlpha(fit) : undefined;
+  if (metric !== "alpha-at" && alphaBands) {
+    return responseFromBands(alphaBands, 1, metric, options, spectrum.meta.sample);
   }
   return spectrumResponse(spectrum, metric, options);
 }
@@ -43,7 +40,7 @@ function response(
 /** The dopant estimate, or null (with a warning when a calibration applies but fails). */
 export function dopantStep(
   spectrum: Spectrum,
-  fit: BandFit | null,
+  fit: BandAnalysis | null,
   s: SampleSettings,
   warnings: string[],
 ): DopantResult | null {

@@ -10,6 +10,7 @@ import type { ThicknessSeries } from "../cie/thickness_series.ts";
 import type { TargetCheck } from "../dopant/target.ts";
 import type { BandFit } from "../bands/fit_bands.ts";
 import type { BandAssignment } from "../bands/assign_bands.ts";
+import type { BandAnalysis } from "../bands/analyse_bands.ts";
 import type { TargetVerdict } from "../dopant/target_probability.ts";
 import type { Provenance } from "./provenance_step.ts";
 import type { ResolvedUncertaintySources } from "../cie/color_uncertainty.ts";
@@ -92,8 +93,24 @@ export interface BandsResult {
   baseline: BandFit["baseline"];
   /** RMS residual of the fit. */
   residualRms: number;
+  /** Photometric noise σ of the ordinate, from the residual of a smooth fit. */
+  noiseSigma: number;
+  /** χ² per degree of freedom of the final fit. */
+  reducedChi2: number;
+  /** Whether the fit converged. */
+  converged: boolean;
   /** Assignment hints (catalogue matches). */
   assignments: BandAssignment[];
+  /** Stretches left out of detection and fitting (saturation, photometric floor, edge). */
+  excluded: BandAnalysis["excluded"];
+  /** What the fit wants the reader to know (unresolved structure, held parameters…). */
+  warnings: string[];
+  /** Parameters held at a bound (left out of the covariance). */
+  held: BandAnalysis["held"];
+  /** The bands as α (cm⁻¹), when the thickness is known. */
+  bandsAlpha?: BandFit["bands"];
+  /** Base of `bandsAlpha`: natural logarithm (A = α·d / ln 10). */
+  alphaBase?: "natural";
   /** The fitted data and model, for the charts. */
   curve: { nm: number[]; data: number[]; model: number[] };
 }

@@ -7,7 +7,8 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { spectrumAbsorbance } from "../spectrum/ordinate.ts";
-import { fitBandsCm1, type FittedBand } from "../bands/fit_bands.ts";
+import type { FittedBand } from "../bands/fit_bands.ts";
+import { analyseBands } from "../bands/analyse_bands.ts";
 import { nmToWavenumber } from "../spectrum/axis.ts";
 import { valueAt } from "../spectrum/linear_resample.ts";
 import { NeedsValueError } from "../spectrum/needs_value_error.ts";
@@ -92,7 +93,8 @@ export function spectrumResponse(
       sigma: sd * Math.sqrt(1 + 1 / inWindow.length),
     };
   }
-  const fit = fitBandsCm1([...nm].map(nmToWavenumber), alpha, {}, "alpha");
+  // the same band analysis the batch runs (usable range, model selection), as α
+  const fit = analyseBands({ ...spectrum, values: alpha, quantity: "alpha" });
   return responseFromBands(fit.bands, 1, metric, options, spectrum.meta.sample);
 }
 
