@@ -5,8 +5,11 @@
  */
 import cliProgress from "cli-progress";
 import process from "node:process";
-import { runBatch } from "../lib/batch/run_batch.ts";
+import { NoInputsError, runBatch } from "../lib/batch/run_batch.ts";
 import { SettingsError } from "../lib/batch/settings_schema.ts";
+import { OutputError } from "../lib/batch/output_error.ts";
+import { OutputLockedError } from "../lib/batch/output_lock.ts";
+import { escapeControls } from "../lib/batch/escape_controls.ts";
 import { EXIT, log, parseCommandArgs, positiveNumber, UsageError } from "./_shared.ts";
 
 export const BATCH_HELP = `crystint batch — process a whole set of exports and write a report
@@ -28,7 +31,11 @@ Options:
 
 Results are cached per input (content hash + settings hash) in DIR/.cache, so a rerun after a
 crash or after adding files only computes what is new. Outputs are written atomically.
-Exit codes: 0 all inputs done, 1 usage or settings error, 2 some inputs failed.
+One run writes an output folder at a time (DIR/.crystint-lock); the three outputs are
+replaced together or not at all. Limits per file (settings "limits": maxFileMb, default 64;
+fileTimeoutSeconds, default 60) fail only the file that breaks them.
+Exit codes: 0 all inputs done, 1 usage, settings or output-folder error (or no input
+matched), 2 some inputs failed.
 
 Example:
   crystint batch spectra/demo --manifest spectra/demo/manifest.csv --out reports/demo
@@ -89,10 +96,10 @@ export async function batchCommand(args: string[]): Promise<number> {
       ...(values.settings ? { settingsPath: values.settings } : {}),
       ...(workers ? { workers: Math.round(workers) } : {}),
       onProgress,
-      log: quiet ? () => {} : log,
+      log: quiet ? () => {} : (m) => log(escapeControls(m)),
     });
     bar?.stop();
-    for (const e of summary.errors) log(`crystint: ${e.message}`);
+    for (const e of summary.errors) log(`crystint: ${escapeControls(e.message)}`);
     if (!quiet) {
       log(
         `crystint: ${summary.samples} sample(s) from ${
@@ -105,7 +112,13 @@ export async function batchCommand(args: string[]): Promise<number> {
     return summary.errors.length > 0 ? EXIT.someFailed : EXIT.ok;
   } catch (e) {
     bar?.stop();
-    if (e instanceof SettingsError) throw new UsageError(e.message);
+    if (e instanceof SettingsError) throw new UsageError(escapeControls(e.message));
+    if (
+      e instanceof NoInputsError || e instanceof OutputError || e instanceof OutputLockedError
+    ) {
+      log(`crystint batch: ${escapeControls(e.message)}`);
+      return EXIT.usage;
+    }
     throw e;
   }
 }

@@ -12,3 +12,8 @@ export * from "./read_settings.ts";
 export * from "./sample_settings_from_sheet.ts";
 export * from "./run_batch.ts";
 export * from "./report_from_results.ts";
+export * from "./read_limited.ts";
+export * from "./output_lock.ts";
+export * from "./output_error.ts";
+export * from "./batch_limits.ts";
+export * from "./settings_shape.ts";

@@ -1,85 +1,132 @@
 /**
  * A fixed pool of Deno Workers running the analysis of one file per job, sized to the machine.
+ * Each job has a time budget: a worker that runs past it, or dies, is terminated and replaced,
+ * and only its file fails.
  *
  * @module
  */
-import type { SampleResult } from "../analysis/sample_result.ts";
 import type { SampleSettings } from "../analysis/sample_settings.ts";
 
 /** What a job gives back. */
 export type JobOutcome =
-  | { ok: true; results: SampleResult[] }
+  | { ok: true; json: string; count: number }
   | { ok: false; error: { message: string; problem: string; line: number | null } };
 
-interface Pending {
-  resolve: (o: JobOutcome) => void;
+interface Slot {
   worker: Worker;
+  job?: {
+    id: number;
+    file: string;
+    resolve: (o: JobOutcome) => void;
+    timer: ReturnType<typeof setTimeout>;
+  } | undefined;
+}
+
+/** How a pool runs its jobs. */
+export interface PoolOptions {
+  /** Longest a job may run before its worker is stopped, ms (default 60 s). */
+  timeoutMs?: number;
 }
 
 /** A pool of workers; `run` queues a job and resolves with its outcome. */
 export class WorkerPool {
   readonly size: number;
-  #workers: Worker[] = [];
-  #idle: Worker[] = [];
-  #queue: (() => void)[] = [];
-  #pending = new Map<number, Pending>();
+  readonly #timeoutMs: number;
+  #slots: Slot[] = [];
+  #queue: ((slot: Slot) => void)[] = [];
   #nextId = 0;
+  #closed = false;
+  /** Workers replaced after a timeout or a crash. */
+  replaced = 0;
 
-  constructor(size = Math.max(1, Math.min(navigator.hardwareConcurrency || 2, 8))) {
+  constructor(
+    size = Math.max(1, Math.min(navigator.hardwareConcurrency || 2, 8)),
+    options: PoolOptions = {},
+  ) {
     this.size = size;
-    for (let i = 0; i < size; i++) {
-      const w = new Worker(new URL("./worker.ts", import.meta.url).href, { type: "module" });
-      w.onmessage = (e: MessageEvent<{ id: number } & JobOutcome>) => {
-        const p = this.#pending.get(e.data.id);
-        if (!p) return;
-        this.#pending.delete(e.data.id);
-        this.#release(p.worker);
-        const { id: _id, ...outcome } = e.data;
-        p.resolve(outcome as JobOutcome);
-      };
-      w.onerror = (e) => {
-        e.preventDefault();
-        for (const [id, p] of this.#pending) {
-          if (p.worker !== w) continue;
-          this.#pending.delete(id);
-          p.resolve({
-            ok: false,
-            error: { message: `Worker failed: ${e.message}`, problem: "processing", line: null },
-          });
-          this.#release(w);
-        }
-      };
-      this.#workers.push(w);
-      this.#idle.push(w);
+    this.#timeoutMs = options.timeoutMs ?? 60_000;
+    for (let i = 0; i < size; i++) this.#slots.push(this.#spawn());
+  }
+
+  #spawn(): Slot {
+    const slot: Slot = {
+      worker: new Worker(new URL("./worker.ts", import.meta.url).href, { type: "module" }),
+    };
+    slot.worker.onmessage = (e: MessageEvent<{ id: number } & JobOutcome>) => {
+      const job = slot.job;
+      if (!job || job.id !== e.data.id) return;
+      const { id: _id, ...outcome } = e.data;
+      this.#finish(slot, outcome as JobOutcome);
+    };
+    slot.worker.onerror = (e) => {
+      e.preventDefault();
+      this.#fail(slot, `worker failed: ${e.message}`);
+    };
+    slot.worker.onmessageerror = () => this.#fail(slot, "worker sent an unreadable result");
+    return slot;
+  }
+
+  #finish(slot: Slot, outcome: JobOutcome) {
+    const job = slot.job!;
+    clearTimeout(job.timer);
+    slot.job = undefined;
+    job.resolve(outcome);
+    this.#next(slot);
+  }
+
+  /** Stops a worker mid-job and puts a fresh one in its place. */
+  #fail(slot: Slot, message: string) {
+    const job = slot.job;
+    slot.worker.terminate();
+    const index = this.#slots.indexOf(slot);
+    if (job) {
+      clearTimeout(job.timer);
+      job.resolve({
+        ok: false,
+        error: { message: `${job.file}: ${message}`, problem: "processing", line: null },
+      });
     }
+    if (index < 0 || this.#closed) return;
+    this.replaced++;
+    const fresh = this.#spawn();
+    this.#slots[index] = fresh;
+    this.#next(fresh);
   }
 
-  #release(w: Worker) {
-    this.#idle.push(w);
-    this.#queue.shift()?.();
+  #next(slot: Slot) {
+    if (this.#closed) return;
+    this.#queue.shift()?.(slot);
   }
 
-  /** Number of jobs sent and not yet answered. */
+  /** Number of jobs running or queued. */
   get inFlight(): number {
-    return this.#pending.size + this.#queue.length;
+    return this.#slots.filter((s) => s.job).length + this.#queue.length;
   }
 
   /** Runs one job; the bytes are transferred to the worker. */
   run(file: string, bytes: Uint8Array<ArrayBuffer>, settings: SampleSettings): Promise<JobOutcome> {
     return new Promise((resolve) => {
-      const start = () => {
-        const worker = this.#idle.pop()!;
+      const start = (slot: Slot) => {
         const id = this.#nextId++;
-        this.#pending.set(id, { resolve, worker });
-        worker.postMessage({ id, file, bytes, settings }, [bytes.buffer]);
+        const timer = setTimeout(
+          () => this.#fail(slot, `analysis took longer than ${this.#timeoutMs / 1000} s (stopped)`),
+          this.#timeoutMs,
+        );
+        slot.job = { id, file, resolve, timer };
+        slot.worker.postMessage({ id, file, bytes, settings }, [bytes.buffer]);
       };
-      if (this.#idle.length > 0) start();
+      const idle = this.#slots.find((s) => !s.job);
+      if (idle) start(idle);
       else this.#queue.push(start);
     });
   }
 
   /** Stops all workers. */
   close(): void {
-    for (const w of this.#workers) w.terminate();
+    this.#closed = true;
+    for (const s of this.#slots) {
+      if (s.job) clearTimeout(s.job.timer);
+      s.worker.terminate();
+    }
   }
 }
