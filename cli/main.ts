@@ -14,6 +14,7 @@ import { aimCommand } from "./aim.ts";
 import { segregationCommand } from "./segregation.ts";
 import { metamerismCommand, pleochroismCommand } from "./pleochroism.ts";
 import { seriesCommand } from "./series.ts";
+import { watchCommand } from "./watch.ts";
 import { EXIT, log, UsageError } from "./_shared.ts";
 
 const HELP = `crystint — colour, bands and dopant levels of doped crystals from their spectra
@@ -33,6 +34,7 @@ Commands:
   aim       dopant levels (and path) that put the colour on a target
   segregation  Scheil fit of k_eff and C0 along a boule
   batch     process folders of exports into results.csv, results.json and an HTML report
+  watch     process an export folder, then every new export as it lands (batch, continuously)
   report    re-render the HTML report from a saved results.json
 
 Run "crystint <command> --help" for the options of a command.
@@ -52,6 +54,7 @@ const COMMANDS: Record<string, (args: string[]) => Promise<number>> = {
   pleochroism: pleochroismCommand,
   metamerism: metamerismCommand,
   series: seriesCommand,
+  watch: watchCommand,
 };
 
 /** Runs crystint with the given arguments and returns the exit code. */
