@@ -37,9 +37,12 @@ interface Walk {
   relative: Map<string, string>;
   skipped: string[];
   skipReal: Set<string>;
-  skipNames: Set<string>;
   /** Real paths of the folders walked (loop detection). */
   visited: Set<string>;
+  /** Real path of each regular file found. */
+  realFiles: Set<string>;
+  /** Files reached through a link, with their real path. */
+  linked: { path: string; real: string }[];
 }
 
 function inside(real: string, root: string): boolean {
@@ -80,17 +83,14 @@ async function walk(dir: string, rel: string, rootReal: string, w: Walk): Promis
     }
     if (isDirectory) await walk(path, relPath, rootReal, w);
     else if (isFile && !NOT_SPECTRA.test(e.name)) {
-      if (w.skipNames.has(e.name)) {
-        const r = await realOrUndefined(path);
-        if (r !== undefined && w.skipReal.has(r)) continue;
-      }
-      if (e.isSymlink) {
-        const r = await realOrUndefined(path);
-        if (r !== undefined && w.visited.has(`file:${r}`)) continue;
-        if (r !== undefined) w.visited.add(`file:${r}`);
-      }
+      const fileReal = e.isSymlink ? await realOrUndefined(path) : `${real}/${e.name}`;
+      if (fileReal === undefined || w.skipReal.has(fileReal)) continue;
+      if (e.isSymlink) w.linked.push({ path, real: fileReal });
+      else w.realFiles.add(fileReal);
       w.out.push(path);
       w.relative.set(path, relPath);
+    } else if (!isFile && !isDirectory) {
+      w.skipped.push(`${path}: not a regular file (skipped)`);
     }
   }
 }
@@ -103,23 +103,24 @@ async function walk(dir: string, rel: string, rootReal: string, w: Walk): Promis
  */
 export async function planInputs(inputs: string[], skip: string[] = []): Promise<InputPlan> {
   const skipReal = new Set<string>();
-  const skipNames = new Set<string>();
   for (const p of skip) {
     const r = await realOrUndefined(p);
     if (r !== undefined) skipReal.add(r);
-    skipNames.add(p.replace(/\/$/, "").split(/[\\/]/).pop()!);
   }
   const files: string[] = [];
   const missing: string[] = [];
   const relative = new Map<string, string>();
   const skipped: string[] = [];
+  const realFiles = new Set<string>();
+  const linked: { path: string; real: string }[] = [];
   const start = (): Walk => ({
     out: [],
     relative,
     skipped,
     skipReal,
-    skipNames,
     visited: new Set(),
+    realFiles,
+    linked,
   });
   for (const input of inputs) {
     if (picomatch.scan(input).isGlob) {
@@ -151,5 +152,15 @@ export async function planInputs(inputs: string[], skip: string[] = []): Promise
       missing.push(input);
     }
   }
-  return { files: [...new Set(files)], missing, relative, skipped };
+  // a link to a file that is also reached directly (or by another link) is read once
+  const drop = new Set<string>();
+  const seenLinked = new Set<string>();
+  for (const l of linked) {
+    if (realFiles.has(l.real) || seenLinked.has(l.real)) {
+      drop.add(l.path);
+      skipped.push(`${l.path}: symbolic link to a file already in the batch (skipped)`);
+    }
+    seenLinked.add(l.real);
+  }
+  return { files: [...new Set(files)].filter((f) => !drop.has(f)), missing, relative, skipped };
 }

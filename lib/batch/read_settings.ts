@@ -16,7 +16,8 @@ export function parseFailure(e: unknown, text: string): string {
     const at = e.linePos?.[0];
     return `${e.code.toLowerCase().replace(/_/g, " ")}${at ? ` at line ${at.line}` : ""}`;
   }
-  const m = /position (\d+)/.exec((e as Error)?.message ?? "");
+  if (!(e instanceof SyntaxError)) return `cannot parse (${(e as Error)?.name ?? "error"})`;
+  const m = /position (\d+)/.exec(e.message);
   if (m) return `not valid JSON at line ${text.slice(0, Number(m[1])).split("\n").length}`;
   return "not valid JSON";
 }

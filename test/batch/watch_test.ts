@@ -47,6 +47,7 @@ describe("crystint watch", () => {
         "run",
         "-R",
         "-W",
+        "--allow-env=LOG_TOKENS,LOG_STREAM",
         "--allow-sys=cpus,osRelease",
         `${ROOT}cli/main.ts`,
         "watch",

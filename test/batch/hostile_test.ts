@@ -1,0 +1,145 @@
+import { describe, it } from "node:test";
+import { expect } from "expect";
+import { ROOT } from "../_run_cli.ts";
+import { mkfifo, runMeasured, variant, wideExport } from "./_hostile.ts";
+
+const FIXTURE = `${ROOT}test/fixtures/colour/cr_corundum_5nm.csv`;
+// the yaml package reads LOG_TOKENS and LOG_STREAM from the environment
+const PERMS = ["-R", "-W", "--allow-env=LOG_TOKENS,LOG_STREAM", "--allow-sys=cpus,osRelease"];
+
+describe("hostile inputs beside good ones (issue 16)", () => {
+  it("one batch: oversized, devices, FIFO, too slow, malformed, forged names, link loops → exit 2, every good file done, each bad one named; memory and time bounded", async () => {
+    const root = await Deno.makeTempDir({ prefix: "crystint-hostile-" });
+    const lot = `${root}/in`;
+    await Deno.mkdir(`${lot}/sub`, { recursive: true });
+    const base = await Deno.readTextFile(FIXTURE);
+    for (let i = 0; i < 5; i++) await Deno.writeTextFile(`${lot}/good-${i}.csv`, variant(base, i));
+    // 100 MB sparse file: must be refused by its size, never read (the 300 MB case of the issue)
+    const huge = await Deno.open(`${lot}/huge.csv`, { write: true, create: true });
+    await huge.truncate(100 * 1024 * 1024);
+    huge.close();
+    // 20,000 spectra in one export: far past a 3 s budget (500 columns take about 1 s here)
+    await Deno.writeTextFile(`${lot}/wide.csv`, wideExport(base, 20000));
+    await Deno.copyFile(`${ROOT}test/fixtures/exports/bad/non_numeric_cell.csv`, `${lot}/bad.csv`);
+    const forged = `${lot}/x\ncrystint: 0 failed\u001b[2J.csv`;
+    await Deno.copyFile(`${ROOT}test/fixtures/exports/bad/non_numeric_cell.csv`, forged);
+    const fifo = `${lot}/pipe.csv`;
+    const haveFifo = await mkfifo(fifo);
+    await Deno.symlink("..", `${lot}/sub/loop`);
+    await Deno.symlink(root, `${lot}/outside`);
+    await Deno.symlink(`${lot}/good-0.csv`, `${lot}/sub/alias.csv`);
+    // --out inside the input folder, spelled differently: its files are never inputs
+    await Deno.mkdir(`${lot}/report`);
+    await Deno.writeTextFile(`${lot}/report/planted.csv`, variant(base, 9));
+    const settings = `${root}/settings.yaml`;
+    await Deno.writeTextFile(
+      settings,
+      "ordinate: transmittance\nlimits:\n  fileTimeoutSeconds: 3\n",
+    );
+    const inputs = [lot, "/dev/zero", ...(haveFifo ? [fifo] : [])];
+
+    const r = await runMeasured(PERMS, [
+      "batch",
+      ...inputs,
+      "--out",
+      `${lot}/./report/`,
+      "--settings",
+      settings,
+      "--workers",
+      "2",
+    ]);
+    expect(r.code).toBe(2);
+    const results = JSON.parse(await Deno.readTextFile(`${lot}/report/results.json`));
+    const sampleFiles = results.samples.map((s: { file: string }) => s.file).sort();
+    expect(sampleFiles).toEqual([0, 1, 2, 3, 4].map((i) => `${lot}/good-${i}.csv`));
+    const errorOf = (end: string) =>
+      results.errors.find((e: { file: string }) => e.file.endsWith(end))?.message ?? "";
+    expect(errorOf("huge.csv")).toMatch(/huge\.csv: refused: 104857600 bytes, more than the limit/);
+    expect(errorOf("wide.csv")).toMatch(/wide\.csv: analysis took longer than 3 s/);
+    expect(errorOf("/dev/zero")).toMatch(/\/dev\/zero: refused: a character device/);
+    if (haveFifo) expect(errorOf("pipe.csv")).toMatch(/pipe\.csv: refused: a FIFO/);
+    else console.log("mkfifo not available: FIFO case skipped");
+    expect(errorOf("bad.csv")).toMatch(/bad\.csv:5: Cell "abc" is not a number/);
+    expect(errorOf("[2J.csv")).toMatch(/Cell "abc" is not a number/);
+    expect(results.errors.length).toBe(haveFifo ? 6 : 5);
+    // stderr: the forged name is escaped, no raw newline or escape sequence from it
+    expect(r.stderr).toContain("x\\ncrystint: 0 failed\\u{1b}[2J.csv");
+    expect(r.stderr).not.toContain("\u001b");
+    expect(r.stderr.split("\n").filter((l) => /^crystint: 0 failed/.test(l))).toEqual([]);
+    // links: the loop and the one out of the tree listed, the alias read once (as good-0)
+    expect(r.stderr).toMatch(/sub\/loop: symbolic link loop \(skipped\)/);
+    expect(r.stderr).toMatch(/in\/outside: symbolic link out of the input folder \(skipped\)/);
+    expect(r.stderr).toMatch(/alias\.csv: symbolic link to a file already in the batch/);
+    expect(r.stderr).not.toMatch(/    at /); // no stack trace
+    // bounds: generous against a machine under load, far below the failure modes of the issue
+    // (4.8 GB for the 300 MB file, minutes for the slow file)
+    if (r.peakRss !== undefined) expect(r.peakRss).toBeLessThan(1024 * 1024 * 1024);
+    else console.log("no /proc: peak memory not measured");
+    expect(r.ms).toBeLessThan(60000);
+    console.log(
+      `hostile batch: ${r.ms} ms, peak RSS ${((r.peakRss ?? 0) / 1048576).toFixed(0)} MB`,
+    );
+  });
+
+  it("a device or FIFO as calibration, sheet or settings: exit 1 at once with one line naming it; a calibration error never echoes the file", async () => {
+    const root = await Deno.makeTempDir({ prefix: "crystint-hostile-" });
+    const lot = `${root}/in`;
+    await Deno.mkdir(lot);
+    await Deno.writeTextFile(`${lot}/good.csv`, variant(await Deno.readTextFile(FIXTURE), 0));
+    const zeroCal = `${root}/zero.yaml`;
+    await Deno.writeTextFile(zeroCal, "calibration: /dev/zero\n");
+    let r = await runMeasured(PERMS, ["batch", lot, "--out", `${root}/out`, "--settings", zeroCal]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(
+      /Cannot read calibration "default": \/dev\/zero: refused: a character device/,
+    );
+    expect(r.ms).toBeLessThan(20000);
+    const secret = `${root}/env`;
+    await Deno.writeTextFile(secret, "API_TOKEN=hunter2-do-not-print\nOTHER=1\n");
+    const secretCal = `${root}/secret.yaml`;
+    await Deno.writeTextFile(secretCal, `calibration: ${secret}\n`);
+    r = await runMeasured(PERMS, ["batch", lot, "--out", `${root}/out`, "--settings", secretCal]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/not valid JSON; not a crystint calibration file/);
+    expect(r.stderr).not.toContain("hunter2");
+    expect(r.stderr).not.toContain("API_TOKEN");
+    await Deno.writeTextFile(`${root}/bad.json`, '{"pathMm": API_TOKEN=hunter2}');
+    r = await runMeasured(PERMS, [
+      "batch",
+      lot,
+      "--out",
+      `${root}/out`,
+      "--settings",
+      `${root}/bad.json`,
+    ]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).not.toContain("hunter2");
+    if (await mkfifo(`${root}/sheet.csv`)) {
+      r = await runMeasured(PERMS, [
+        "batch",
+        lot,
+        "--out",
+        `${root}/out`,
+        "--manifest",
+        `${root}/sheet.csv`,
+      ]);
+      expect(r.code).toBe(1);
+      expect(r.stderr).toMatch(/sheet\.csv: refused: a FIFO, not a regular file/);
+      expect(r.ms).toBeLessThan(20000);
+    } else console.log("mkfifo not available: FIFO sheet case skipped");
+    r = await runMeasured(PERMS, ["batch", lot, "--out", `${root}/out`, "--settings", "/dev/zero"]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/\/dev\/zero: refused: a character device/);
+    expect(r.stderr.trim().split("\n").length).toBeLessThanOrEqual(2);
+    // nothing was written by any of these runs
+    expect(await Deno.stat(`${root}/out/results.json`).then(() => true, () => false)).toBe(false);
+  });
+
+  it('no input matched: exit 1 "no files matched …" and no outputs', async () => {
+    const root = await Deno.makeTempDir({ prefix: "crystint-hostile-" });
+    const r = await runMeasured(PERMS, ["batch", `${root}/none-*.csv`, "--out", `${root}/out`]);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/no files matched ".*none-\*\.csv"/);
+    expect(await Deno.stat(`${root}/out`).then(() => true, () => false)).toBe(false);
+  });
+});
