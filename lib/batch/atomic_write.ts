@@ -83,7 +83,8 @@ export function tempOwner(name: string): number | undefined {
 
 /**
  * Removes temporary files left in a folder by runs that are no longer alive; temporaries of a
- * live process (another run, or this one) are left alone.
+ * live process (this one, or another where /proc shows it) are left alone. Call it only while
+ * holding the folder's lock (output_lock.ts).
  */
 export async function removeStaleTemporaries(dir: string): Promise<number> {
   let removed = 0;

@@ -1,11 +1,13 @@
 /**
- * One writer per output folder: OUT/.crystint-lock holds the owner's pid. A lock left by a
- * process that no longer runs is taken over; a live owner makes the second run stop with a
- * clear message. The owning process may take the lock again (a watch runs batch after batch).
+ * One writer per output folder: OUT/.crystint-lock is held with an exclusive advisory file
+ * lock (flock) for the whole run and records the owner's pid. The system drops the lock when
+ * its process dies, so a lock left by a killed run is simply taken over; a live owner makes a
+ * second run stop with a clear message. The owning process may take the lock again (a watch
+ * runs batch after batch). The file itself stays (emptied): removing it would let two runs
+ * lock two different files.
  *
  * @module
  */
-import { processAlive } from "./process_alive.ts";
 
 /** Name of the lock file in an output folder. */
 export const LOCK_NAME = ".crystint-lock";
@@ -15,17 +17,24 @@ export class OutputLockedError extends Error {
   readonly path: string;
   readonly pid: number;
   constructor(path: string, pid: number) {
-    super(`${path}: output folder in use by crystint process ${pid} (lock file ${LOCK_NAME})`);
+    super(
+      `${path}: output folder in use by crystint process ${
+        Number.isFinite(pid) ? pid : "(unknown)"
+      } (lock file ${LOCK_NAME})`,
+    );
     this.name = "OutputLockedError";
     this.path = path;
     this.pid = pid;
   }
 }
 
-/** A held lock; `release` removes the lock file when this call created it. */
+/** A held lock; `release` frees it. */
 export interface OutputLock {
   release(): Promise<void>;
 }
+
+/** Folders whose lock this process holds, with the number of holders. */
+const held = new Map<string, number>();
 
 function ownerOf(text: string): number {
   const m = /"pid"\s*:\s*(\d+)/.exec(text);
@@ -38,58 +47,44 @@ function ownerOf(text: string): number {
  * @throws {OutputLockedError} When a live process other than this one holds it.
  */
 export async function lockOutput(outDir: string): Promise<OutputLock> {
-  const path = `${outDir}/${LOCK_NAME}`;
-  const body = JSON.stringify({ pid: Deno.pid, started: new Date().toISOString() }) + "\n";
-  for (let attempt = 0; attempt < 5; attempt++) {
-    try {
-      const f = await Deno.open(path, { write: true, createNew: true });
-      try {
-        await f.write(new TextEncoder().encode(body));
-      } finally {
-        f.close();
-      }
-      return {
-        async release() {
-          const text = await Deno.readTextFile(path).catch(() => "");
-          if (ownerOf(text) === Deno.pid) await Deno.remove(path).catch(() => {});
-        },
-      };
-    } catch (e) {
-      if (!(e instanceof Deno.errors.AlreadyExists)) throw e;
-    }
-    const text = await Deno.readTextFile(path).catch(() => undefined);
-    if (text === undefined) continue; // removed meanwhile: try again
-    const pid = ownerOf(text);
-    if (pid === Deno.pid) return { async release() {} };
-    if (Number.isFinite(pid) && processAlive(pid)) throw new OutputLockedError(outDir, pid);
-    if (!Number.isFinite(pid)) {
-      // a lock being written this instant has no pid yet; an old one without a pid is stale
-      const info = await Deno.stat(path).catch(() => undefined);
-      if (info?.mtime && Date.now() - info.mtime.getTime() < 2000) {
-        await new Promise((r) => setTimeout(r, 100));
-        continue;
-      }
-    }
-    // stale: take it over by replacing it, then check that our claim is the one that stuck
-    const claim = `${path}.${Deno.pid}`;
-    await Deno.writeTextFile(claim, body);
-    const again = await Deno.readTextFile(path).catch(() => undefined);
-    if (again !== undefined && again !== text) {
-      await Deno.remove(claim).catch(() => {});
-      continue;
-    }
-    await Deno.rename(claim, path);
-    await new Promise((r) => setTimeout(r, 20));
-    const now = await Deno.readTextFile(path).catch(() => "");
-    if (ownerOf(now) === Deno.pid) {
-      return {
-        async release() {
-          const text = await Deno.readTextFile(path).catch(() => "");
-          if (ownerOf(text) === Deno.pid) await Deno.remove(path).catch(() => {});
-        },
-      };
-    }
+  const key = await Deno.realPath(outDir).catch(() => outDir);
+  const count = held.get(key);
+  if (count !== undefined) {
+    held.set(key, count + 1);
+    return { release: () => Promise.resolve(drop(key)) };
   }
-  const text = await Deno.readTextFile(path).catch(() => "");
-  throw new OutputLockedError(outDir, ownerOf(text));
+  const path = `${outDir}/${LOCK_NAME}`;
+  const file = await Deno.open(path, { read: true, write: true, create: true });
+  let locked = false;
+  try {
+    locked = await file.tryLock(true);
+  } catch (e) {
+    file.close();
+    throw e;
+  }
+  if (!locked) {
+    file.close();
+    const text = await Deno.readTextFile(path).catch(() => "");
+    throw new OutputLockedError(outDir, ownerOf(text));
+  }
+  const body = JSON.stringify({ pid: Deno.pid, started: new Date().toISOString() }) + "\n";
+  await file.truncate(0);
+  await file.write(new TextEncoder().encode(body));
+  held.set(key, 1);
+  let released = false;
+  return {
+    async release() {
+      if (released) return;
+      released = true;
+      held.delete(key);
+      await file.truncate(0).catch(() => {});
+      await file.unlock().catch(() => {});
+      file.close();
+    },
+  };
+}
+
+function drop(key: string) {
+  const n = held.get(key);
+  if (n !== undefined && n > 1) held.set(key, n - 1);
 }

@@ -1,11 +1,12 @@
 /**
- * Whether a process id belongs to a running process, from the Linux /proc file system; on
- * systems without it a process is assumed alive (so nothing of another run is ever removed).
+ * Whether a process id belongs to a running process, from the Linux /proc file system when
+ * the run may read it. Without that, every other pid counts as gone: callers ask only while
+ * holding the output folder's lock, when no other live run can be writing there.
  *
  * @module
  */
 
-/** True when `pid` is this process or a running one (a zombie counts as dead). */
+/** True when `pid` is this process or (where /proc is readable) a running one. */
 export function processAlive(pid: number): boolean {
   if (pid === Deno.pid) return true;
   if (!Number.isInteger(pid) || pid <= 0) return false;
@@ -14,21 +15,7 @@ export function processAlive(pid: number): boolean {
     // field 3, after the parenthesised command name, is the state; Z = zombie, X = dead
     const state = stat.slice(stat.lastIndexOf(")") + 2, stat.lastIndexOf(")") + 3);
     return state !== "Z" && state !== "X";
-  } catch (e) {
-    if (e instanceof Deno.errors.NotFound) return !procAvailable();
-    return true;
+  } catch {
+    return false;
   }
-}
-
-let hasProc: boolean | undefined;
-function procAvailable(): boolean {
-  if (hasProc === undefined) {
-    try {
-      Deno.statSync(`/proc/${Deno.pid}`);
-      hasProc = true;
-    } catch {
-      hasProc = false;
-    }
-  }
-  return hasProc;
 }

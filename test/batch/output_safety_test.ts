@@ -111,30 +111,45 @@ describe("exact sample-sheet matching (issue 16 item 5)", () => {
 });
 
 describe("one writer per output folder (issue 16 item 7)", () => {
-  it("a live lock stops a second writer; a dead owner's lock is taken over; only dead runs' temporaries are removed", async () => {
+  it("a live lock stops a second writer; a killed owner's lock is taken over; only dead runs' temporaries are removed", async () => {
     const out = await Deno.makeTempDir();
-    const dead = await deadPid();
-    await Deno.writeTextFile(`${out}/.crystint-lock`, JSON.stringify({ pid: dead }));
+    // a lock file left with a pid but no live holder is simply taken
+    await Deno.writeTextFile(`${out}/.crystint-lock`, JSON.stringify({ pid: await deadPid() }));
     const lock = await lockOutput(out);
     expect(JSON.parse(await Deno.readTextFile(`${out}/.crystint-lock`)).pid).toBe(Deno.pid);
-    // a live process other than this one: a sleeping child
-    const sleeper = new Deno.Command("sleep", { args: ["30"] }).spawn();
-    try {
-      await lock.release();
-      await Deno.writeTextFile(`${out}/.crystint-lock`, JSON.stringify({ pid: sleeper.pid }));
-      await expect(lockOutput(out)).rejects.toThrow(
-        `output folder in use by crystint process ${sleeper.pid}`,
-      );
-      await Deno.writeTextFile(`${out}/${TEMP_PREFIX}${sleeper.pid}-results.json-a`, "live");
-      await Deno.writeTextFile(`${out}/${TEMP_PREFIX}${dead}-results.json-b`, "dead");
-      await Deno.writeTextFile(`${out}/${TEMP_PREFIX}results.json-c`, "old style, no pid");
-      expect(await removeStaleTemporaries(out)).toBe(2);
-      expect([...Deno.readDirSync(out)].map((e) => e.name).filter((n) => n.startsWith(TEMP_PREFIX)))
-        .toEqual([`${TEMP_PREFIX}${sleeper.pid}-results.json-a`]);
-    } finally {
-      sleeper.kill();
-      await sleeper.status;
-    }
+    await lock.release();
+    expect(await Deno.readTextFile(`${out}/.crystint-lock`)).toBe("");
+    // another live process holding the lock
+    const holder = new Deno.Command(Deno.execPath(), {
+      args: [
+        "eval",
+        `import { lockOutput } from ${JSON.stringify(`${ROOT}lib/batch/output_lock.ts`)};
+         await lockOutput(${JSON.stringify(out)}); console.log("locked");
+         await new Promise((r) => setTimeout(r, 60000));`,
+      ],
+      stdout: "piped",
+      stderr: "null",
+    }).spawn();
+    const reader = holder.stdout.pipeThrough(new TextDecoderStream()).getReader();
+    expect((await reader.read()).value).toMatch(/locked/);
+    await expect(lockOutput(out)).rejects.toThrow(
+      `output folder in use by crystint process ${holder.pid}`,
+    );
+    // its temporaries are kept, those of dead runs (and of the old unnamed kind) removed
+    const dead = await deadPid();
+    await Deno.writeTextFile(`${out}/${TEMP_PREFIX}${holder.pid}-results.json-a`, "live");
+    await Deno.writeTextFile(`${out}/${TEMP_PREFIX}${dead}-results.json-b`, "dead");
+    await Deno.writeTextFile(`${out}/${TEMP_PREFIX}results.json-c`, "old style, no pid");
+    expect(await removeStaleTemporaries(out)).toBe(2);
+    expect([...Deno.readDirSync(out)].map((e) => e.name).filter((n) => n.startsWith(TEMP_PREFIX)))
+      .toEqual([`${TEMP_PREFIX}${holder.pid}-results.json-a`]);
+    // killed: the system drops its lock and the next run takes it over
+    holder.kill("SIGKILL");
+    await holder.status;
+    await reader.cancel();
+    const again = await lockOutput(out);
+    expect(JSON.parse(await Deno.readTextFile(`${out}/.crystint-lock`)).pid).toBe(Deno.pid);
+    await again.release();
   });
 
   it("two batches on one --out, ten times: no crash, no stack trace; the outputs are one run's, complete", async () => {
@@ -157,8 +172,11 @@ describe("one writer per output folder (issue 16 item 7)", () => {
       expect(csv!.trim().split("\n").length).toBe(1 + results.samples.length * 4);
       expect(html).toContain(results.samples[0].sample);
     }
-    expect([...Deno.readDirSync(out)].map((e) => e.name).filter((n) => n.startsWith(".crystint")))
+    expect(
+      [...Deno.readDirSync(out)].map((e) => e.name).filter((n) => n.startsWith(".crystint-tmp")),
+    )
       .toEqual([]);
+    expect(await Deno.readTextFile(`${out}/.crystint-lock`)).toBe("");
   });
 });
 
@@ -255,7 +273,7 @@ describe("environment errors (issue 16 item 8)", () => {
           before.splice(0, 3, ...now);
         }
         const temps = [...Deno.readDirSync(mnt), ...Deno.readDirSync(`${mnt}/.cache`)]
-          .filter((e) => e.name.startsWith(".crystint"));
+          .filter((e) => e.name.startsWith(".crystint-tmp"));
         expect(temps.map((e) => e.name)).toEqual([]);
       }
       expect(full).toBe(true);

@@ -26,7 +26,7 @@ function tempLeftovers(dir: string): string[] {
   const out: string[] = [];
   const walk = (d: string) => {
     for (const e of Deno.readDirSync(d)) {
-      if (e.name.startsWith(".crystint-tmp-") || e.name.startsWith(".crystint-lock")) {
+      if (e.name.startsWith(".crystint-tmp-")) {
         out.push(`${d}/${e.name}`);
       }
       if (e.isDirectory) walk(`${d}/${e.name}`);
@@ -112,6 +112,7 @@ describe("crystint watch", () => {
     expect(status.code).toBe(0);
     expect(elapsed).toBeLessThan(5000);
     expect(tempLeftovers(out)).toEqual([]);
+    expect(await Deno.readTextFile(`${out}/.crystint-lock`)).toBe(""); // released
     // a line per processed file, the malformed one named with its line
     for (const name of ["first.csv", "slow.csv", "third.csv"]) {
       expect(stderr.split("\n").filter((l) => l.includes(`${name}: `)).length).toBe(1);
