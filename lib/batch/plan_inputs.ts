@@ -61,6 +61,11 @@ async function walk(dir: string, rel: string, rootReal: string, w: Walk): Promis
   for (const e of entries) {
     if (e.name.startsWith(".")) continue;
     const path = `${dir.replace(/\/$/, "")}/${e.name}`;
+    if (e.name.includes("\uFFFD") && !(await Deno.lstat(path).then(() => true, () => false))) {
+      // the system gave a name that is not UTF-8; it cannot be opened under this spelling
+      w.skipped.push(`${path}: file name is not valid UTF-8, rename it to include it (skipped)`);
+      continue;
+    }
     const relPath = rel ? `${rel}/${e.name}` : e.name;
     let isDirectory = e.isDirectory, isFile = e.isFile;
     if (e.isSymlink) {

@@ -23,6 +23,10 @@ describe("hostile inputs beside good ones (issue 16)", () => {
     await Deno.copyFile(`${ROOT}test/fixtures/exports/bad/non_numeric_cell.csv`, `${lot}/bad.csv`);
     const forged = `${lot}/x\ncrystint: 0 failed\u001b[2J.csv`;
     await Deno.copyFile(`${ROOT}test/fixtures/exports/bad/non_numeric_cell.csv`, forged);
+    // a file name that is not UTF-8 (made by the shell: Deno strings cannot spell it)
+    const latin1 = await new Deno.Command("sh", {
+      args: ["-c", `cp "$1" "$2/$(printf 'caf\\351.csv')"`, "sh", FIXTURE, lot],
+    }).output().then((r) => r.success, () => false);
     const fifo = `${lot}/pipe.csv`;
     const haveFifo = await mkfifo(fifo);
     await Deno.symlink("..", `${lot}/sub/loop`);
@@ -70,6 +74,7 @@ describe("hostile inputs beside good ones (issue 16)", () => {
     expect(r.stderr).toMatch(/sub\/loop: symbolic link loop \(skipped\)/);
     expect(r.stderr).toMatch(/in\/outside: symbolic link out of the input folder \(skipped\)/);
     expect(r.stderr).toMatch(/alias\.csv: symbolic link to a file already in the batch/);
+    if (latin1) expect(r.stderr).toMatch(/caf\uFFFD\.csv: file name is not valid UTF-8/);
     expect(r.stderr).not.toMatch(/    at /); // no stack trace
     // bounds: generous against a machine under load, far below the failure modes of the issue
     // (4.8 GB for the 300 MB file, minutes for the slow file)
