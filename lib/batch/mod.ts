@@ -17,3 +17,5 @@ export * from "./output_lock.ts";
 export * from "./output_error.ts";
 export * from "./batch_limits.ts";
 export * from "./settings_shape.ts";
+export * from "./watch_folder.ts";
+export * from "./escape_controls.ts";
