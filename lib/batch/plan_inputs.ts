@@ -140,7 +140,7 @@ export async function planInputs(inputs: string[], skip: string[] = []): Promise
       }
       const hits = w.out.filter((f) => match(relative.get(f)!));
       if (hits.length === 0) missing.push(input);
-      files.push(...hits);
+      for (const f of hits) files.push(f);
       continue;
     }
     try {
@@ -148,7 +148,7 @@ export async function planInputs(inputs: string[], skip: string[] = []): Promise
       if (info.isDirectory) {
         const w = start();
         await walk(input, "", (await realOrUndefined(input)) ?? input, w);
-        files.push(...w.out);
+        for (const f of w.out) files.push(f);
       } else {
         files.push(input);
         if (!relative.has(input)) relative.set(input, input.split(/[\\/]/).pop()!);

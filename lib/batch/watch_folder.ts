@@ -79,6 +79,7 @@ export async function watchFolder(options: WatchOptions): Promise<number> {
   /** size:mtime of each file as last processed. */
   const processed = new Map<string, string>();
   let updates = 0;
+  let lastConfig = "";
   const skip = [outDir, options.manifestPath, options.settingsPath].filter((p): p is string => !!p);
   try {
     while (!options.signal.aborted) {
@@ -98,8 +99,14 @@ export async function watchFolder(options: WatchOptions): Promise<number> {
         }
         if (now - s.since >= settleMs) stable.set(f, `${size}:${mtime}`);
       }
+      // the sheet and settings are part of every result: an edit of either re-renders all
+      const config = (await Promise.all(
+        skip.slice(1).map((p) =>
+          Deno.stat(p).then((i) => `${i.size}:${i.mtime?.getTime()}`, () => "-")
+        ),
+      )).join("|");
       const changed = [...stable].some(([f, sig]) => processed.get(f) !== sig) ||
-        [...processed.keys()].some((f) => !present.has(f));
+        [...processed.keys()].some((f) => !present.has(f)) || config !== lastConfig;
       if (changed && stable.size > 0) {
         const fresh = new Set(
           [...stable].filter(([f, sig]) => processed.get(f) !== sig).map(
@@ -127,6 +134,7 @@ export async function watchFolder(options: WatchOptions): Promise<number> {
         }
         processed.clear();
         for (const [f, sig] of stable) processed.set(f, sig);
+        lastConfig = config;
       }
       await sleep(pollMs, options.signal);
     }
