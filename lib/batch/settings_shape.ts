@@ -65,7 +65,7 @@ export const settingsShape = z.strictObject({
   series: z.strictObject({
     fromMm: mm.optional(),
     toMm: mm.optional(),
-    steps: numeric(z.number().int().gte(2).lte(1000)).optional(),
+    steps: numeric(z.number().int({ error: "must be a whole number" }).gte(2).lte(1000)).optional(),
     targetL: numeric(z.number().gt(0).lt(100)).optional(),
   }).optional(),
   changeHueThresholdDeg: numeric(z.number().gt(0).lte(180)).optional(),
