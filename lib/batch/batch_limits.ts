@@ -6,6 +6,7 @@
  */
 import { DEFAULT_MAX_FILE_BYTES } from "./read_limited.ts";
 import type { BatchSettings } from "./settings_schema.ts";
+import { DEFAULT_MAX_RSS_BYTES } from "./pool.ts";
 
 /** Default time budget of one file's analysis, seconds. */
 export const DEFAULT_FILE_TIMEOUT_SECONDS = 60;
@@ -16,6 +17,8 @@ export interface BatchLimits {
   maxFileBytes: number;
   /** Longest analysis of one file, milliseconds. */
   fileTimeoutMs: number;
+  /** Resident size of the process past which the pool's memory guard acts, bytes. */
+  maxRssBytes: number;
 }
 
 /** The limits a batch's settings ask for. */
@@ -26,5 +29,8 @@ export function batchLimits(settings: BatchSettings | undefined): BatchLimits {
       ? DEFAULT_MAX_FILE_BYTES
       : Math.floor(l.maxFileMb * 1024 * 1024),
     fileTimeoutMs: (l.fileTimeoutSeconds ?? DEFAULT_FILE_TIMEOUT_SECONDS) * 1000,
+    maxRssBytes: l.maxMemoryMb === undefined
+      ? DEFAULT_MAX_RSS_BYTES
+      : Math.floor(l.maxMemoryMb * 1024 * 1024),
   };
 }

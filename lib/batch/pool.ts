@@ -1,7 +1,13 @@
 /**
  * A fixed pool of Deno Workers running the analysis of one file per job, sized to the machine.
  * Each job has a time budget: a worker that runs past it, or dies, is terminated and replaced,
- * and only its file fails.
+ * and only its file fails. A memory guard watches the process's resident size: past the cap,
+ * the job running longest fails ("memory limit") and the others go on.
+ *
+ * Limitation (Deno 2.9): `Worker.terminate()` does not interrupt a worker busy in synchronous
+ * code; a stopped worker runs on in the background until its job ends or the process exits.
+ * The batch still finishes and writes its outputs, but a job that allocates without end can
+ * exhaust the process before that: the size caps on what is read are the first defence.
  *
  * @module
  */
@@ -12,31 +18,49 @@ export type JobOutcome =
   | { ok: true; json: string; count: number }
   | { ok: false; error: { message: string; problem: string; line: number | null } };
 
+interface Job {
+  file: string;
+  bytes: Uint8Array<ArrayBuffer>;
+  settings: SampleSettings;
+  resolve: (o: JobOutcome) => void;
+}
+
+interface Running extends Job {
+  id: number;
+  timer: ReturnType<typeof setTimeout>;
+  /** When the job started, ms since the epoch. */
+  startedAt: number;
+}
+
 interface Slot {
   worker: Worker;
-  job?: {
-    id: number;
-    file: string;
-    resolve: (o: JobOutcome) => void;
-    timer: ReturnType<typeof setTimeout>;
-  } | undefined;
+  job?: Running | undefined;
 }
 
 /** How a pool runs its jobs. */
 export interface PoolOptions {
   /** Longest a job may run before its worker is stopped, ms (default 60 s). */
   timeoutMs?: number;
+  /** Resident size of the process past which the memory guard acts, bytes (default 3 GiB). */
+  maxRssBytes?: number;
 }
+
+/** Default resident-size cap of a batch process, bytes. */
+export const DEFAULT_MAX_RSS_BYTES = 3 * 1024 * 1024 * 1024;
 
 /** A pool of workers; `run` queues a job and resolves with its outcome. */
 export class WorkerPool {
   readonly size: number;
   readonly #timeoutMs: number;
+  readonly #maxRss: number;
   #slots: Slot[] = [];
-  #queue: ((slot: Slot) => void)[] = [];
+  #queue: Job[] = [];
   #nextId = 0;
   #closed = false;
-  /** Workers replaced after a timeout or a crash. */
+  #guard: ReturnType<typeof setInterval> | undefined;
+  /** The guard acts at most once per half second. */
+  #nextTrip = 0;
+  /** Workers replaced after a timeout, a crash or the memory guard. */
   replaced = 0;
 
   constructor(
@@ -45,6 +69,7 @@ export class WorkerPool {
   ) {
     this.size = size;
     this.#timeoutMs = options.timeoutMs ?? 60_000;
+    this.#maxRss = options.maxRssBytes ?? DEFAULT_MAX_RSS_BYTES;
     for (let i = 0; i < size; i++) this.#slots.push(this.#spawn());
   }
 
@@ -56,46 +81,104 @@ export class WorkerPool {
       const job = slot.job;
       if (!job || job.id !== e.data.id) return;
       const { id: _id, ...outcome } = e.data;
-      this.#finish(slot, outcome as JobOutcome);
+      this.#end(slot, outcome as JobOutcome);
+      this.#pump();
     };
     slot.worker.onerror = (e) => {
       e.preventDefault();
-      this.#fail(slot, `worker failed: ${e.message}`);
+      this.#stop(slot, `worker failed: ${e.message}`);
     };
-    slot.worker.onmessageerror = () => this.#fail(slot, "worker sent an unreadable result");
+    slot.worker.onmessageerror = () => this.#stop(slot, "worker sent an unreadable result");
     return slot;
   }
 
-  #finish(slot: Slot, outcome: JobOutcome) {
+  #end(slot: Slot, outcome: JobOutcome) {
     const job = slot.job!;
     clearTimeout(job.timer);
     slot.job = undefined;
+    this.#updateGuard();
     job.resolve(outcome);
-    this.#next(slot);
   }
 
-  /** Stops a worker mid-job and puts a fresh one in its place. */
-  #fail(slot: Slot, message: string) {
-    const job = slot.job;
+  /** Replaces a slot's worker with a fresh one. */
+  #replace(slot: Slot): void {
     slot.worker.terminate();
     const index = this.#slots.indexOf(slot);
+    if (index < 0 || this.#closed) return;
+    this.replaced++;
+    this.#slots[index] = this.#spawn();
+  }
+
+  /** Stops a worker mid-job (its file fails) and carries on with a fresh one. */
+  #stop(slot: Slot, message: string) {
+    const job = slot.job;
+    this.#replace(slot);
     if (job) {
-      clearTimeout(job.timer);
-      job.resolve({
+      slot.job = job; // #end reads it
+      this.#end(slot, {
         ok: false,
         error: { message: `${job.file}: ${message}`, problem: "processing", line: null },
       });
     }
-    if (index < 0 || this.#closed) return;
-    this.replaced++;
-    const fresh = this.#spawn();
-    this.#slots[index] = fresh;
-    this.#next(fresh);
+    this.#pump();
   }
 
-  #next(slot: Slot) {
+  /**
+   * The memory guard: past the cap, the job running longest is stopped and fails (normal
+   * files take milliseconds, so it is the one that keeps allocating); while the size stays
+   * past the cap, the next longest follows, at most one every half second.
+   */
+  #checkMemory() {
+    const rss = Deno.memoryUsage().rss;
+    if (rss <= this.#maxRss || Date.now() < this.#nextTrip) return;
+    const busy = this.#slots.filter((s) => s.job).sort((a, b) =>
+      a.job!.startedAt - b.job!.startedAt
+    );
+    const oldest = busy[0];
+    if (!oldest) return;
+    this.#nextTrip = Date.now() + 500;
+    const mb = (n: number) => `${Math.round(n / 1048576)} MB`;
+    this.#stop(
+      oldest,
+      `memory limit: the batch passed ${mb(this.#maxRss)} (at ${
+        mb(rss)
+      }) while this file was analysed`,
+    );
+  }
+
+  #updateGuard() {
+    const busy = this.#slots.some((s) => s.job);
+    if (busy && this.#guard === undefined && !this.#closed) {
+      this.#guard = setInterval(() => this.#checkMemory(), 25);
+    } else if (!busy && this.#guard !== undefined) {
+      clearInterval(this.#guard);
+      this.#guard = undefined;
+    }
+  }
+
+  /** Starts queued jobs on idle workers. */
+  #pump() {
     if (this.#closed) return;
-    this.#queue.shift()?.(slot);
+    while (this.#queue.length > 0) {
+      const next = this.#queue[0]!;
+      const idle = this.#slots.find((s) => !s.job);
+      if (!idle) return;
+      this.#queue.shift();
+      this.#start(idle, next);
+    }
+  }
+
+  #start(slot: Slot, job: Job) {
+    const id = this.#nextId++;
+    const timer = setTimeout(
+      () => this.#stop(slot, `analysis took longer than ${this.#timeoutMs / 1000} s (stopped)`),
+      this.#timeoutMs,
+    );
+    slot.job = { ...job, id, timer, startedAt: Date.now() };
+    this.#updateGuard();
+    slot.worker.postMessage({ id, file: job.file, bytes: job.bytes, settings: job.settings }, [
+      job.bytes.buffer,
+    ]);
   }
 
   /** Number of jobs running or queued. */
@@ -103,27 +186,18 @@ export class WorkerPool {
     return this.#slots.filter((s) => s.job).length + this.#queue.length;
   }
 
-  /** Runs one job; the bytes are transferred to the worker. */
+  /** Runs one job. */
   run(file: string, bytes: Uint8Array<ArrayBuffer>, settings: SampleSettings): Promise<JobOutcome> {
     return new Promise((resolve) => {
-      const start = (slot: Slot) => {
-        const id = this.#nextId++;
-        const timer = setTimeout(
-          () => this.#fail(slot, `analysis took longer than ${this.#timeoutMs / 1000} s (stopped)`),
-          this.#timeoutMs,
-        );
-        slot.job = { id, file, resolve, timer };
-        slot.worker.postMessage({ id, file, bytes, settings }, [bytes.buffer]);
-      };
-      const idle = this.#slots.find((s) => !s.job);
-      if (idle) start(idle);
-      else this.#queue.push(start);
+      this.#queue.push({ file, bytes, settings, resolve });
+      this.#pump();
     });
   }
 
   /** Stops all workers. */
   close(): void {
     this.#closed = true;
+    if (this.#guard !== undefined) clearInterval(this.#guard);
     for (const s of this.#slots) {
       if (s.job) clearTimeout(s.job.timer);
       s.worker.terminate();

@@ -70,7 +70,7 @@ export async function processInputs(
   options: ComputeOptions,
 ): Promise<ComputeSummary> {
   const { rows, settings, calibrations, cacheDir } = options;
-  const { maxFileBytes, fileTimeoutMs } = batchLimits(settings);
+  const { maxFileBytes, fileTimeoutMs, maxRssBytes } = batchLimits(settings);
   const manifestNotes: string[] = [];
   const join = joinSheet(rows, files, options.relative);
   const outcomes: FileOutcome[] = files.map((file) => ({ file }));
@@ -115,7 +115,7 @@ export async function processInputs(
         finished(outcome);
         continue;
       }
-      pool ??= new WorkerPool(options.workers, { timeoutMs: fileTimeoutMs });
+      pool ??= new WorkerPool(options.workers, { timeoutMs: fileTimeoutMs, maxRssBytes });
       const job = pool.run(file, bytes, perFile).then(async (result) => {
         if (result.ok) {
           try {

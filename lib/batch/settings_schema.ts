@@ -48,7 +48,7 @@ export interface BatchSettings {
   /** Named calibration files the manifest's `calibration` column may refer to. */
   calibrations: Record<string, string>;
   /** Per-file limits of a batch (see batch_limits.ts for the defaults). */
-  limits?: { maxFileMb?: number; fileTimeoutSeconds?: number };
+  limits?: { maxFileMb?: number; fileTimeoutSeconds?: number; maxMemoryMb?: number };
 }
 
 /** A problem with the settings file (a usage error, exit code 1). */
@@ -261,6 +261,9 @@ export function resolveSettings(
     if (l.maxFileMb !== undefined) s.limits.maxFileMb = num(l.maxFileMb, "limits.maxFileMb", true);
     if (l.fileTimeoutSeconds !== undefined) {
       s.limits.fileTimeoutSeconds = num(l.fileTimeoutSeconds, "limits.fileTimeoutSeconds", true);
+    }
+    if (l.maxMemoryMb !== undefined) {
+      s.limits.maxMemoryMb = num(l.maxMemoryMb, "limits.maxMemoryMb");
     }
   }
   if (o.changeHueThresholdDeg !== undefined) {

@@ -75,6 +75,7 @@ export const settingsShape = z.strictObject({
   limits: z.strictObject({
     maxFileMb: numeric(z.number().gt(0).lte(4096)).optional(),
     fileTimeoutSeconds: numeric(z.number().gt(0).lte(86400)).optional(),
+    maxMemoryMb: numeric(z.number().gte(256).lte(1048576)).optional(),
   }).optional(),
   /** The report block is validated by the report's own settings. */
   report: z.unknown().optional(),
