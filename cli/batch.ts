@@ -5,8 +5,10 @@
  */
 import cliProgress from "cli-progress";
 import process from "node:process";
-import { runBatch } from "../lib/batch/run_batch.ts";
-import { planInputs } from "../lib/batch/plan_inputs.ts";
+import { NoInputsError, runBatch } from "../lib/batch/run_batch.ts";
+import { OutputError } from "../lib/batch/output_error.ts";
+import { OutputLockedError } from "../lib/batch/output_lock.ts";
+import { escapeControls } from "../lib/batch/escape_controls.ts";
 import {
   type BatchSettings,
   defaultSettings,
@@ -143,12 +145,6 @@ async function batchCommand(args: ParsedArgs): Promise<number> {
     if (e instanceof SettingsError) throw new UsageError(e.message);
     throw e;
   }
-  const skip = [values.out, values.manifest, values.settings].filter((p): p is string => !!p);
-  const plan = await planInputs(positionals, skip.map((p) => p.replace(/\/$/, "")));
-  if (plan.files.length === 0) {
-    log(`crystint batch: no files matched ${positionals.map((p) => `"${p}"`).join(", ")}`);
-    return EXIT.usage;
-  }
   const tty = Deno.stderr.isTerminal();
   let bar: cliProgress.SingleBar | undefined;
   let lastLine = 0;
@@ -184,10 +180,10 @@ async function batchCommand(args: ParsedArgs): Promise<number> {
       ...(settings ? { settings } : values.settings ? { settingsPath: values.settings } : {}),
       ...(workers ? { workers: Math.round(workers) } : {}),
       onProgress,
-      log: quiet ? () => {} : log,
+      log: quiet ? () => {} : (m) => log(escapeControls(m)),
     });
     bar?.stop();
-    for (const e of summary.errors) log(`crystint: ${e.message}`);
+    for (const e of summary.errors) log(`crystint: ${escapeControls(e.message)}`);
     if (!quiet) {
       log(
         `crystint: ${summary.samples} sample(s) from ${
@@ -200,7 +196,13 @@ async function batchCommand(args: ParsedArgs): Promise<number> {
     return summary.errors.length > 0 ? EXIT.someFailed : EXIT.ok;
   } catch (e) {
     bar?.stop();
-    if (e instanceof SettingsError) throw new UsageError(e.message);
+    if (e instanceof SettingsError) throw new UsageError(escapeControls(e.message));
+    if (
+      e instanceof NoInputsError || e instanceof OutputError || e instanceof OutputLockedError
+    ) {
+      log(`crystint batch: ${escapeControls(e.message)}`);
+      return EXIT.usage;
+    }
     throw e;
   }
 }

@@ -17,6 +17,7 @@ import { SEGREGATION_COMMAND } from "./segregation.ts";
 import { BATCH_COMMAND } from "./batch.ts";
 import { REPORT_COMMAND } from "./report.ts";
 import { CONVERT_COMMAND } from "./convert.ts";
+import { WATCH_COMMAND } from "./watch.ts";
 
 /** Every command crystint has. */
 export const COMMANDS: CommandSpec[] = [
@@ -31,6 +32,7 @@ export const COMMANDS: CommandSpec[] = [
   AIM_COMMAND,
   SEGREGATION_COMMAND,
   BATCH_COMMAND,
+  WATCH_COMMAND,
   REPORT_COMMAND,
   CONVERT_COMMAND,
 ];

@@ -6,9 +6,14 @@
 import type { Calibration } from "../dopant/linear_calibration.ts";
 import type { CalibrationSummary } from "../analysis/results_document.ts";
 import { type BatchSettings, SettingsError } from "./settings_schema.ts";
+import { batchLimits } from "./batch_limits.ts";
+import { readTextLimited } from "./read_limited.ts";
+import { parseFailure } from "./read_settings.ts";
 
 /**
  * Reads every calibration the settings name (`calibration` is called "default").
+ *
+ * Messages name the file and the cause, never its contents.
  *
  * @throws {SettingsError} When a file cannot be read or is not a crystint calibration.
  */
@@ -20,18 +25,32 @@ export async function loadCalibrations(
     ...settings.calibrations,
     ...(settings.calibration ? { default: settings.calibration } : {}),
   };
+  const { maxFileBytes } = batchLimits(settings);
   for (const [name, path] of Object.entries(named)) {
+    const fail = (why: string) =>
+      new SettingsError(`Cannot read calibration "${name}" (${path}): ${why}`);
+    let text: string;
     try {
-      const parsed = JSON.parse(await Deno.readTextFile(path));
-      if (parsed.kind !== "crystint-calibration") {
-        throw new Error("not a crystint calibration file");
-      }
-      calibrations[name] = parsed;
+      text = await readTextLimited(path, maxFileBytes);
     } catch (e) {
-      throw new SettingsError(
-        `Cannot read calibration "${name}" (${path}): ${(e as Error).message}`,
-      );
+      throw new SettingsError(`Cannot read calibration "${name}": ${(e as Error).message}`);
     }
+    let parsed: Calibration & { kind?: unknown };
+    try {
+      parsed = JSON.parse(text);
+    } catch (e) {
+      throw fail(`${parseFailure(e, text)}; not a crystint calibration file`);
+    }
+    if (!parsed || typeof parsed !== "object" || parsed.kind !== "crystint-calibration") {
+      throw fail("not a crystint calibration file");
+    }
+    if (
+      !Number.isFinite(parsed.slope) || !Number.isFinite(parsed.intercept) ||
+      !Array.isArray(parsed.points)
+    ) {
+      throw fail("slope, intercept or points missing or not finite");
+    }
+    calibrations[name] = parsed;
   }
   return calibrations;
 }

@@ -1,85 +1,206 @@
 /**
  * A fixed pool of Deno Workers running the analysis of one file per job, sized to the machine.
+ * Each job has a time budget: a worker that runs past it, or dies, is terminated and replaced,
+ * and only its file fails. A memory guard watches the process's resident size: past the cap,
+ * the job running longest fails ("memory limit") and the others go on.
+ *
+ * Limitation (Deno 2.9): `Worker.terminate()` does not interrupt a worker busy in synchronous
+ * code; a stopped worker runs on in the background until its job ends or the process exits.
+ * The batch still finishes and writes its outputs, but a job that allocates without end can
+ * exhaust the process before that: the size caps on what is read are the first defence.
  *
  * @module
  */
-import type { SampleResult } from "../analysis/sample_result.ts";
 import type { SampleSettings } from "../analysis/sample_settings.ts";
 
 /** What a job gives back. */
 export type JobOutcome =
-  | { ok: true; results: SampleResult[] }
+  | { ok: true; json: string; count: number }
   | { ok: false; error: { message: string; problem: string; line: number | null } };
 
-interface Pending {
+interface Job {
+  file: string;
+  bytes: Uint8Array<ArrayBuffer>;
+  settings: SampleSettings;
   resolve: (o: JobOutcome) => void;
-  worker: Worker;
 }
+
+interface Running extends Job {
+  id: number;
+  timer: ReturnType<typeof setTimeout>;
+  /** When the job started, ms since the epoch. */
+  startedAt: number;
+}
+
+interface Slot {
+  worker: Worker;
+  job?: Running | undefined;
+}
+
+/** How a pool runs its jobs. */
+export interface PoolOptions {
+  /** Longest a job may run before its worker is stopped, ms (default 60 s). */
+  timeoutMs?: number;
+  /** Resident size of the process past which the memory guard acts, bytes (default 3 GiB). */
+  maxRssBytes?: number;
+}
+
+/** Default resident-size cap of a batch process, bytes. */
+export const DEFAULT_MAX_RSS_BYTES = 3 * 1024 * 1024 * 1024;
 
 /** A pool of workers; `run` queues a job and resolves with its outcome. */
 export class WorkerPool {
   readonly size: number;
-  #workers: Worker[] = [];
-  #idle: Worker[] = [];
-  #queue: (() => void)[] = [];
-  #pending = new Map<number, Pending>();
+  readonly #timeoutMs: number;
+  readonly #maxRss: number;
+  #slots: Slot[] = [];
+  #queue: Job[] = [];
   #nextId = 0;
+  #closed = false;
+  #guard: ReturnType<typeof setInterval> | undefined;
+  /** The guard acts at most once per half second. */
+  #nextTrip = 0;
+  /** Workers replaced after a timeout, a crash or the memory guard. */
+  replaced = 0;
 
-  constructor(size = Math.max(1, Math.min(navigator.hardwareConcurrency || 2, 8))) {
+  constructor(
+    size = Math.max(1, Math.min(navigator.hardwareConcurrency || 2, 8)),
+    options: PoolOptions = {},
+  ) {
     this.size = size;
-    for (let i = 0; i < size; i++) {
-      const w = new Worker(new URL("./worker.ts", import.meta.url).href, { type: "module" });
-      w.onmessage = (e: MessageEvent<{ id: number } & JobOutcome>) => {
-        const p = this.#pending.get(e.data.id);
-        if (!p) return;
-        this.#pending.delete(e.data.id);
-        this.#release(p.worker);
-        const { id: _id, ...outcome } = e.data;
-        p.resolve(outcome as JobOutcome);
-      };
-      w.onerror = (e) => {
-        e.preventDefault();
-        for (const [id, p] of this.#pending) {
-          if (p.worker !== w) continue;
-          this.#pending.delete(id);
-          p.resolve({
-            ok: false,
-            error: { message: `Worker failed: ${e.message}`, problem: "processing", line: null },
-          });
-          this.#release(w);
-        }
-      };
-      this.#workers.push(w);
-      this.#idle.push(w);
+    this.#timeoutMs = options.timeoutMs ?? 60_000;
+    this.#maxRss = options.maxRssBytes ?? DEFAULT_MAX_RSS_BYTES;
+    for (let i = 0; i < size; i++) this.#slots.push(this.#spawn());
+  }
+
+  #spawn(): Slot {
+    const slot: Slot = {
+      worker: new Worker(new URL("./worker.ts", import.meta.url).href, { type: "module" }),
+    };
+    slot.worker.onmessage = (e: MessageEvent<{ id: number } & JobOutcome>) => {
+      const job = slot.job;
+      if (!job || job.id !== e.data.id) return;
+      const { id: _id, ...outcome } = e.data;
+      this.#end(slot, outcome as JobOutcome);
+      this.#pump();
+    };
+    slot.worker.onerror = (e) => {
+      e.preventDefault();
+      this.#stop(slot, `worker failed: ${e.message}`);
+    };
+    slot.worker.onmessageerror = () => this.#stop(slot, "worker sent an unreadable result");
+    return slot;
+  }
+
+  #end(slot: Slot, outcome: JobOutcome) {
+    const job = slot.job!;
+    clearTimeout(job.timer);
+    slot.job = undefined;
+    this.#updateGuard();
+    job.resolve(outcome);
+  }
+
+  /** Replaces a slot's worker with a fresh one. */
+  #replace(slot: Slot): void {
+    slot.worker.terminate();
+    const index = this.#slots.indexOf(slot);
+    if (index < 0 || this.#closed) return;
+    this.replaced++;
+    this.#slots[index] = this.#spawn();
+  }
+
+  /** Stops a worker mid-job (its file fails) and carries on with a fresh one. */
+  #stop(slot: Slot, message: string) {
+    const job = slot.job;
+    this.#replace(slot);
+    if (job) {
+      slot.job = job; // #end reads it
+      this.#end(slot, {
+        ok: false,
+        error: { message: `${job.file}: ${message}`, problem: "processing", line: null },
+      });
+    }
+    this.#pump();
+  }
+
+  /**
+   * The memory guard: past the cap, the job running longest is stopped and fails (normal
+   * files take milliseconds, so it is the one that keeps allocating); while the size stays
+   * past the cap, the next longest follows, at most one every half second.
+   */
+  #checkMemory() {
+    const rss = Deno.memoryUsage().rss;
+    if (rss <= this.#maxRss || Date.now() < this.#nextTrip) return;
+    const busy = this.#slots.filter((s) => s.job).sort((a, b) =>
+      a.job!.startedAt - b.job!.startedAt
+    );
+    const oldest = busy[0];
+    if (!oldest) return;
+    this.#nextTrip = Date.now() + 500;
+    const mb = (n: number) => `${Math.round(n / 1048576)} MB`;
+    this.#stop(
+      oldest,
+      `memory limit: the batch passed ${mb(this.#maxRss)} (at ${
+        mb(rss)
+      }) while this file was analysed`,
+    );
+  }
+
+  #updateGuard() {
+    const busy = this.#slots.some((s) => s.job);
+    if (busy && this.#guard === undefined && !this.#closed) {
+      this.#guard = setInterval(() => this.#checkMemory(), 25);
+    } else if (!busy && this.#guard !== undefined) {
+      clearInterval(this.#guard);
+      this.#guard = undefined;
     }
   }
 
-  #release(w: Worker) {
-    this.#idle.push(w);
-    this.#queue.shift()?.();
+  /** Starts queued jobs on idle workers. */
+  #pump() {
+    if (this.#closed) return;
+    while (this.#queue.length > 0) {
+      const next = this.#queue[0]!;
+      const idle = this.#slots.find((s) => !s.job);
+      if (!idle) return;
+      this.#queue.shift();
+      this.#start(idle, next);
+    }
   }
 
-  /** Number of jobs sent and not yet answered. */
+  #start(slot: Slot, job: Job) {
+    const id = this.#nextId++;
+    const timer = setTimeout(
+      () => this.#stop(slot, `analysis took longer than ${this.#timeoutMs / 1000} s (stopped)`),
+      this.#timeoutMs,
+    );
+    slot.job = { ...job, id, timer, startedAt: Date.now() };
+    this.#updateGuard();
+    slot.worker.postMessage({ id, file: job.file, bytes: job.bytes, settings: job.settings }, [
+      job.bytes.buffer,
+    ]);
+  }
+
+  /** Number of jobs running or queued. */
   get inFlight(): number {
-    return this.#pending.size + this.#queue.length;
+    return this.#slots.filter((s) => s.job).length + this.#queue.length;
   }
 
-  /** Runs one job; the bytes are transferred to the worker. */
+  /** Runs one job. */
   run(file: string, bytes: Uint8Array<ArrayBuffer>, settings: SampleSettings): Promise<JobOutcome> {
     return new Promise((resolve) => {
-      const start = () => {
-        const worker = this.#idle.pop()!;
-        const id = this.#nextId++;
-        this.#pending.set(id, { resolve, worker });
-        worker.postMessage({ id, file, bytes, settings }, [bytes.buffer]);
-      };
-      if (this.#idle.length > 0) start();
-      else this.#queue.push(start);
+      this.#queue.push({ file, bytes, settings, resolve });
+      this.#pump();
     });
   }
 
   /** Stops all workers. */
   close(): void {
-    for (const w of this.#workers) w.terminate();
+    this.#closed = true;
+    if (this.#guard !== undefined) clearInterval(this.#guard);
+    for (const s of this.#slots) {
+      if (s.job) clearTimeout(s.job.timer);
+      s.worker.terminate();
+    }
   }
 }

@@ -9,6 +9,12 @@ import { renderResults } from "../report/report_input.ts";
 import { readChartBundle } from "./chart_bundle.ts";
 import { writeTextAtomic } from "./atomic_write.ts";
 import { SettingsError } from "./settings_schema.ts";
+import { readTextLimited } from "./read_limited.ts";
+import { parseFailure } from "./read_settings.ts";
+import { OutputError } from "./output_error.ts";
+
+/** Largest results.json re-rendered, bytes (near the longest string the engine can hold). */
+export const MAX_RESULTS_BYTES = 512 * 1024 * 1024;
 
 /** The report block of a results file, keeping only text fields of the known names. */
 function reportHeaderOf(v: unknown): ReportHeader | undefined {
@@ -57,11 +63,17 @@ function checkResults(parsed: unknown, resultsPath: string): ResultsDocument {
  * @throws {SettingsError} When the results file cannot be read or is not crystint results.
  */
 export async function reportFromResults(resultsPath: string, outDir: string): Promise<string> {
+  let text: string;
+  try {
+    text = await readTextLimited(resultsPath, MAX_RESULTS_BYTES);
+  } catch (e) {
+    throw new SettingsError(`Cannot read results ${(e as Error).message}`);
+  }
   let parsed: unknown;
   try {
-    parsed = JSON.parse(await Deno.readTextFile(resultsPath));
+    parsed = JSON.parse(text);
   } catch (e) {
-    throw new SettingsError(`Cannot read results ${resultsPath}: ${(e as Error).message}`);
+    throw new SettingsError(`Cannot read results ${resultsPath}: ${parseFailure(e, text)}`);
   }
   const doc = checkResults(parsed, resultsPath);
   let html: string;
@@ -72,8 +84,13 @@ export async function reportFromResults(resultsPath: string, outDir: string): Pr
       `${resultsPath} holds results the report cannot show: ${(e as Error).message}`,
     );
   }
-  await Deno.mkdir(outDir, { recursive: true });
   const out = `${outDir.replace(/\/$/, "")}/index.html`;
-  await writeTextAtomic(out, html);
+  try {
+    await Deno.mkdir(outDir, { recursive: true });
+    await writeTextAtomic(out, html);
+  } catch (e) {
+    // one line naming the path and the cause (exit code 1), as for the batch
+    throw new SettingsError(new OutputError(out, e).message);
+  }
   return out;
 }

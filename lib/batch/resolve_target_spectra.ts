@@ -3,7 +3,9 @@
  *
  * @module
  */
-import { readSpectrumFile } from "../io/read_file.ts";
+import { readSpectraFromBytes } from "../io/read_spectra.ts";
+import { batchLimits } from "./batch_limits.ts";
+import { readFileLimited } from "./read_limited.ts";
 import { transmittanceForPath } from "../optics/path_transmittance.ts";
 import { spectrumColour } from "../cie/spectrum_colour.ts";
 import { type BatchSettings, SettingsError } from "./settings_schema.ts";
@@ -19,7 +21,8 @@ export async function resolveTargetSpectra(settings: BatchSettings): Promise<voi
     if (!t.spectrum) continue;
     let spectrum;
     try {
-      [spectrum] = await readSpectrumFile(t.spectrum);
+      const bytes = await readFileLimited(t.spectrum, batchLimits(settings).maxFileBytes);
+      [spectrum] = readSpectraFromBytes(bytes, t.spectrum);
     } catch (e) {
       throw new SettingsError(
         `Cannot read the target's reference spectrum: ${(e as Error).message}`,

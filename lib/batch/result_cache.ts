@@ -43,3 +43,18 @@ export async function writeCached(
 ): Promise<void> {
   await writeTextAtomic(path, JSON.stringify({ file, key, version: VERSION, results }));
 }
+
+/** Stores the results of one input given as JSON text (as the worker sends them). */
+export async function writeCachedJson(
+  path: string,
+  file: string,
+  key: string,
+  resultsJson: string,
+): Promise<void> {
+  await writeTextAtomic(
+    path,
+    `{"file":${JSON.stringify(file)},"key":${JSON.stringify(key)},"version":${
+      JSON.stringify(VERSION)
+    },"results":${resultsJson}}`,
+  );
+}

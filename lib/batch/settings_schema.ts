@@ -7,6 +7,7 @@ import { getIlluminant } from "../cie/illuminants.ts";
 import { getObserver } from "../cie/observers.ts";
 import { getHost, parseSellmeier } from "../optics/refractive_index.ts";
 import { axisFromText, ordinateFromText } from "../io/header_units.ts";
+import { checkSettingsShape } from "./settings_shape.ts";
 import type {
   ChangeSetting,
   SeriesSetting,
@@ -49,6 +50,8 @@ export interface BatchSettings {
   calibrations: Record<string, string>;
   /** Report title, lab, client, operator, note, date and audience; date defaults to the run's. */
   report?: Partial<ReportHeader>;
+  /** Per-file limits of a batch (see batch_limits.ts for the defaults). */
+  limits?: { maxFileMb?: number; fileTimeoutSeconds?: number; maxMemoryMb?: number };
 }
 
 /** A problem with the settings file (a usage error, exit code 1). */
@@ -198,39 +201,23 @@ function reportSettings(v: unknown): Partial<ReportHeader> {
 /**
  * Validates a settings object (from JSON or YAML) on top of the defaults.
  *
+ * Types and bounds are checked first (settings_shape.ts); unknown keys go to `warn`.
+ *
  * @throws {SettingsError} Naming the setting and what is wrong with it.
  */
-export function resolveSettings(raw: unknown): BatchSettings {
+export function resolveSettings(
+  raw: unknown,
+  warn: (message: string) => void = () => {},
+): BatchSettings {
   const s = defaultSettings();
   if (raw === null || raw === undefined) return s;
+  const shape = checkSettingsShape(raw);
+  if (shape.error) throw new SettingsError(shape.error);
+  shape.warnings.forEach((w) => warn(w));
   if (typeof raw !== "object" || Array.isArray(raw)) {
     throw new SettingsError("Settings must be a mapping of names to values");
   }
   const o = raw as Record<string, unknown>;
-  const known = new Set([
-    "illuminants",
-    "observers",
-    "change",
-    "pathMm",
-    "thicknessMm",
-    "reflection",
-    "host",
-    "n",
-    "ordinate",
-    "axis",
-    "target",
-    "targets",
-    "series",
-    "changeHueThresholdDeg",
-    "calibration",
-    "calibrations",
-    "changeMinChroma",
-    "sellmeier",
-    "report",
-  ]);
-  for (const k of Object.keys(o)) {
-    if (!known.has(k)) throw new SettingsError(`Unknown setting "${k}"`);
-  }
   const list = (
     v: unknown,
   ) => (Array.isArray(v) ? v.map(String) : String(v).split(",").map((x) => x.trim()));
@@ -316,6 +303,17 @@ export function resolveSettings(raw: unknown): BatchSettings {
     }
   }
   if (o.report !== undefined) s.report = reportSettings(o.report);
+  if (o.limits !== undefined) {
+    const l = o.limits as Record<string, unknown>;
+    s.limits = {};
+    if (l.maxFileMb !== undefined) s.limits.maxFileMb = num(l.maxFileMb, "limits.maxFileMb", true);
+    if (l.fileTimeoutSeconds !== undefined) {
+      s.limits.fileTimeoutSeconds = num(l.fileTimeoutSeconds, "limits.fileTimeoutSeconds", true);
+    }
+    if (l.maxMemoryMb !== undefined) {
+      s.limits.maxMemoryMb = num(l.maxMemoryMb, "limits.maxMemoryMb");
+    }
+  }
   if (o.changeHueThresholdDeg !== undefined) {
     s.changeHueThresholdDeg = num(o.changeHueThresholdDeg, "changeHueThresholdDeg", true);
   }

@@ -1,6 +1,7 @@
 /// <reference lib="deno.worker" />
 /**
- * Batch worker: computes the results of one file per message (see lib/analysis).
+ * Batch worker: computes the results of one file per message (see lib/analysis) and sends
+ * them back as JSON text, so a result too large to serialise fails only its own file.
  *
  * @module
  */
@@ -19,7 +20,14 @@ export interface WorkerJob {
 self.onmessage = (event: MessageEvent<WorkerJob>) => {
   const { id, file, bytes, settings } = event.data;
   try {
-    self.postMessage({ id, ok: true, results: analyseFile(bytes, file, settings) });
+    const results = analyseFile(bytes, file, settings);
+    let json: string;
+    try {
+      json = JSON.stringify(results);
+    } catch (e) {
+      throw new RangeError(`results too large to store (${(e as Error).message})`);
+    }
+    self.postMessage({ id, ok: true, json, count: results.length });
   } catch (e) {
     const error = e instanceof InputError
       ? { message: e.message, problem: e.problem, line: e.line ?? null }

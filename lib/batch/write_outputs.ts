@@ -1,7 +1,9 @@
 /**
  * Writes a batch's three outputs from the cached results, streaming so memory does not grow
  * with the batch: results.json first, then results.csv, then index.html rendered through the
- * same report builder `crystint report` uses.
+ * same report builder `crystint report` uses. All three go to temporaries first and are renamed
+ * into place only when every one is complete, so a failure (disk full, permission) leaves the
+ * previous outputs as they were: all replaced or none.
  *
  * @module
  */
@@ -9,9 +11,10 @@ import type { SampleResult } from "../analysis/sample_result.ts";
 import type { ResultsError, ResultsHeader } from "../analysis/results_document.ts";
 import { ReportInputBuilder } from "../report/report_input.ts";
 import { renderReport } from "../report/render_report.ts";
-import { writeChunksAtomic, writeTextAtomic } from "./atomic_write.ts";
+import { writeChunksToTemp } from "./atomic_write.ts";
 import { readChartBundle } from "./chart_bundle.ts";
 import { resultsCsvHeader, resultsCsvRows } from "./results_csv.ts";
+import { OutputError } from "./output_error.ts";
 
 /** Where the outputs go. */
 export interface OutputPaths {
@@ -66,13 +69,24 @@ export async function writeOutputs(
     }
     yield `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)}}\n`;
   }
-  await writeChunksAtomic(paths.json, jsonChunks());
-  async function* csvChunks() {
-    yield resultsCsvHeader(extraColumns);
-    for await (const result of results()) yield resultsCsvRows(result, extraColumns);
+  const temps: [string, string][] = [];
+  try {
+    temps.push([await writeChunksToTemp(paths.json, jsonChunks()), paths.json]);
+    const csvChunks = async function* () {
+      yield resultsCsvHeader(extraColumns);
+      for await (const result of results()) yield resultsCsvRows(result, extraColumns);
+    };
+    temps.push([await writeChunksToTemp(paths.csv, csvChunks()), paths.csv]);
+    const html = renderReport(builder.finish(errors, manifestNotes), await readChartBundle());
+    temps.push([await writeChunksToTemp(paths.html, [html]), paths.html]);
+    for (const [tmp, path] of temps) await Deno.rename(tmp, path);
+  } catch (e) {
+    for (const [tmp] of temps) await Deno.remove(tmp).catch(() => {});
+    throw new OutputError(temps.length < 3 ? pathBeingWritten(paths, temps.length) : paths.html, e);
   }
-  await writeChunksAtomic(paths.csv, csvChunks());
-  const html = renderReport(builder.finish(errors, manifestNotes), await readChartBundle());
-  await writeTextAtomic(paths.html, html);
   return samples;
+}
+
+function pathBeingWritten(paths: OutputPaths, done: number): string {
+  return [paths.json, paths.csv, paths.html][done]!;
 }

@@ -103,7 +103,9 @@ describe("crystint batch (machine contract)", () => {
         expect(() => JSON.parse(Deno.readTextFileSync(`${out}/.cache/${e.name}`))).not.toThrow();
       }
     }
-    expect((await runCli("batch", lot, "--out", out, "--quiet")).code).toBe(0);
+    const rerun = await runCli("batch", lot, "--out", out, "--quiet");
+    expect(rerun.stderr).toBe("");
+    expect(rerun.code).toBe(0);
     expect((await runCli("batch", lot, "--out", reference, "--quiet")).code).toBe(0);
     expect(await Deno.readTextFile(`${out}/results.json`)).toBe(
       await Deno.readTextFile(`${reference}/results.json`),
@@ -147,7 +149,37 @@ describe("batch building blocks", () => {
   });
   it("settings are validated with the setting named", () => {
     expect(() => resolveSettings({ pathMm: -1 })).toThrow(SettingsError);
-    expect(() => resolveSettings({ colour: 1 })).toThrow(/Unknown setting "colour"/);
+    const warnings: string[] = [];
+    resolveSettings({ colour: 1 }, (w) => warnings.push(w));
+    expect(warnings).toEqual([`Unknown setting "colour" (ignored)`]);
+    expect(() => resolveSettings({ change: null })).toThrow(
+      /Setting change: Invalid input: expected object, received null/,
+    );
+    expect(() => resolveSettings({ series: "abc" })).toThrow(/Setting series: .*expected object/);
+    expect(() => resolveSettings({ series: { steps: 1e7 } })).toThrow(/series.steps: Too big/);
+    expect(() => resolveSettings({ series: { steps: 2.5 } })).toThrow(
+      /series.steps: must be a whole number/,
+    );
+    expect(() => resolveSettings({ n: 0.5 })).toThrow(/Setting n: Too small/);
+    expect(() => resolveSettings({ changeHueThresholdDeg: 500 })).toThrow(/changeHueThresholdDeg/);
+    expect(() => resolveSettings({ limits: { maxFileMb: -1 } })).toThrow(/limits.maxFileMb/);
+    expect(() => resolveSettings({ change: { adapt: "vonkries" } })).toThrow(
+      /Setting change.adapt: Invalid option/,
+    );
+    expect(resolveSettings({ limits: { fileTimeoutSeconds: "2,5" } }).limits).toEqual({
+      fileTimeoutSeconds: 2.5,
+    });
+    // a wrong value is described, never repeated (it may come from a file that is not settings)
+    let message = "";
+    try {
+      resolveSettings({ pathMm: "hunter2-secret" });
+    } catch (e) {
+      message = (e as Error).message;
+    }
+    expect(message).toBe("Setting pathMm: Invalid input: expected number, received string");
+    const nested: string[] = [];
+    resolveSettings({ series: { stepz: 3 } }, (w) => nested.push(w));
+    expect(nested).toEqual([`Unknown setting "series.stepz" (ignored)`]);
     expect(resolveSettings({ target: "50, 30, -5" }).target).toMatchObject({
       L: 50,
       a: 30,
