@@ -193,7 +193,7 @@ export function uncertaintyFrom(values: UncertaintyValues): UncertaintySettings 
   };
 }
 
-/** Colour options shared with `spectrumColour`. */
+/** Colour options shared with `spectrumColor`. */
 type RowOptions = {
   illuminants: (string | Illuminant)[];
   observers: string[];
@@ -213,7 +213,7 @@ function reportEstimate(u: ColorUncertainty | undefined, file: string, sample: s
 
 /**
  * Colour rows of one spectrum with their uncertainties merged in (same order as
- * `spectrumColour`): LSd, aSd, bSd, CSd, hSd, labCovariance and the stated sources.
+ * `spectrumColor`): LSd, aSd, bSd, CSd, hSd, labCovariance and the stated sources.
  */
 export function withColorUncertainty<T extends object>(
   rows: T[],

@@ -3,7 +3,7 @@
  *
  * @module
  */
-import { colourChange } from "../lib/cie/colour_change.ts";
+import { colorChange } from "../lib/cie/color_change.ts";
 import { transmittanceForPath } from "../lib/optics/path_transmittance.ts";
 import type { CommandSpec } from "./_command.ts";
 import {
@@ -101,7 +101,7 @@ export const CHANGE_COMMAND: CommandSpec = {
       for (const s of spectra) {
         note(s, pathMm);
         const t = transmittanceForPath(s, pathMm, reflection).values;
-        const c = colourChange(s.wavelengthNm, t, from!, to!, observer!, adapt as "none");
+        const c = colorChange(s.wavelengthNm, t, from!, to!, observer!, adapt as "none");
         rows.push({
           sample: s.meta.sample,
           file,

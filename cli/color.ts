@@ -3,7 +3,7 @@
  *
  * @module
  */
-import { type ColourRow, spectrumColour } from "../lib/cie/spectrum_colour.ts";
+import { type ColorRow, spectrumColor } from "../lib/cie/spectrum_color.ts";
 import type { CommandSpec } from "./_command.ts";
 import { MARKS } from "../lib/report/marks.ts";
 import {
@@ -118,7 +118,7 @@ export const COLOR_COMMAND: CommandSpec = {
     );
     const note = surfaceLossNote(reflection, args);
     const uncertainty = uncertaintyFromArgs(args);
-    const rows: ColourRow[] = [];
+    const rows: ColorRow[] = [];
     const failed = await forEachFile(args.positionals, args, (spectra, file) => {
       for (const s of spectra) note(s, pathMm);
       const options = {
@@ -128,7 +128,7 @@ export const COLOR_COMMAND: CommandSpec = {
         ...(pathMm === undefined ? {} : { pathMm }),
       };
       const fileRows = spectra.flatMap((s) => {
-        const plain = spectrumColour(s, options);
+        const plain = spectrumColor(s, options);
         return uncertainty ? withColorUncertainty(plain, s, uncertainty, options, file) : plain;
       });
       const s = spectra[0]!;

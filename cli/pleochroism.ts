@@ -10,7 +10,7 @@ import {
   transmittanceForPath,
   unpolarisedTransmittance,
 } from "../lib/optics/path_transmittance.ts";
-import { spectrumColour } from "../lib/cie/spectrum_colour.ts";
+import { spectrumColor } from "../lib/cie/spectrum_color.ts";
 import { deltaE2000 } from "../lib/cie/delta_e.ts";
 import type { CommandSpec } from "./_command.ts";
 import {
@@ -181,9 +181,9 @@ export const PLEOCHROISM_COMMAND: CommandSpec = {
     );
     const observers = checkObservers(listOption(args.string("observer"), [DEFAULT_OBSERVER]));
     const opts = { illuminants, observers };
-    const rowsO = spectrumColour(o, { ...opts, transmittance: tO });
-    const rowsE = spectrumColour({ ...o, meta: e.meta }, { ...opts, transmittance: tE });
-    const rowsU = spectrumColour(o, { ...opts, transmittance: tU });
+    const rowsO = spectrumColor(o, { ...opts, transmittance: tO });
+    const rowsE = spectrumColor({ ...o, meta: e.meta }, { ...opts, transmittance: tE });
+    const rowsU = spectrumColor(o, { ...opts, transmittance: tU });
     const rows = rowsO.map((ro, i) => {
       const re = rowsE[i]!, ru = rowsU[i]!;
       return {

@@ -4,7 +4,7 @@
  * @module
  */
 import { thicknessSeries } from "../lib/cie/thickness_series.ts";
-import { spectrumColour } from "../lib/cie/spectrum_colour.ts";
+import { spectrumColor } from "../lib/cie/spectrum_color.ts";
 import type { CommandSpec } from "./_command.ts";
 import {
   EXIT,
@@ -172,7 +172,7 @@ export const SERIES_COMMAND: CommandSpec = {
         const points: SeriesPoint[] = paths === undefined
           ? series.points.map((p) => ({ ...p }))
           : paths.map((pathMm) => {
-            const [c] = spectrumColour(s, {
+            const [c] = spectrumColor(s, {
               illuminants: [illuminant!],
               observers: [observer!],
               reflection,

@@ -10,13 +10,13 @@
  *
  * @example Colour of a stone at its finished path, from an export's bytes
  * ```ts
- * import { readSpectraFromBytes, spectrumColour } from "./mod.ts";
+ * import { readSpectraFromBytes, spectrumColor } from "./mod.ts";
  * const rows = ["wavelength_nm,T"];
  * for (let nm = 360; nm <= 830; nm += 5) rows.push(`${nm},${nm > 600 ? 0.8 : 0.3}`);
  * const [stone] = readSpectraFromBytes(new TextEncoder().encode(rows.join("\n")), "red.csv", {
  *   thicknessMm: 2,
  * });
- * const [day] = spectrumColour(stone!, { illuminants: ["D65"], observers: ["2"], pathMm: 6 });
+ * const [day] = spectrumColor(stone!, { illuminants: ["D65"], observers: ["2"], pathMm: 6 });
  * if (!(day!.a > 0 && day!.L < 80)) throw new Error("a red stone should have a* > 0");
  * ```
  *
@@ -46,11 +46,11 @@
  *
  * @example Colour change D65 → A: a neutral grey does not change (each under its own white)
  * ```ts
- * import { colourChange } from "./mod.ts";
+ * import { colorChange } from "./mod.ts";
  * const nm = Array.from({ length: 48 }, (_, i) => 360 + 10 * i);
- * const grey = colourChange(nm, nm.map(() => 0.4), "D65", "A", "2");
+ * const grey = colorChange(nm, nm.map(() => 0.4), "D65", "A", "2");
  * if (grey.dE00 > 1e-6) throw new Error(String(grey.dE00));
- * const red = colourChange(nm, nm.map((w) => (w > 620 ? 0.9 : 0.05)), "D65", "A", "2");
+ * const red = colorChange(nm, nm.map((w) => (w > 620 ? 0.9 : 0.05)), "D65", "A", "2");
  * if (!(red.dE00 > 1)) throw new Error("a red filter changes visibly between D65 and A");
  * ```
  *
@@ -105,10 +105,10 @@ export { InputError } from "./io/input_error.ts";
 export { type ReadOptions, readSpectraFromBytes } from "./io/read_spectra.ts";
 export { readSpectrumFile } from "./io/read_file.ts";
 
-export { type ColourOptions, type ColourRow, spectrumColour } from "./cie/spectrum_colour.ts";
+export { type ColorOptions, type ColorRow, spectrumColor } from "./cie/spectrum_color.ts";
 export { type Lab, labToLch, type Lch, xyzToLab } from "./cie/spaces.ts";
 export { deltaE2000, deltaE76, deltaE94, deltaECmc } from "./cie/delta_e.ts";
-export { type ColourChange, colourChange } from "./cie/colour_change.ts";
+export { type ColorChange, colorChange } from "./cie/color_change.ts";
 export { type ThicknessSeries, thicknessSeries } from "./cie/thickness_series.ts";
 export { getIlluminant, type Illuminant, ILLUMINANT_NAMES } from "./cie/illuminants.ts";
 

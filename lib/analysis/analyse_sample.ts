@@ -46,10 +46,10 @@ export function analyseSample(
   const { spectrum, settings: s, provenance } = provenanceStep(measured, given, warnings);
   const { t, warnings: opticsWarnings } = pathTransmittance(spectrum, s);
   warnings.push(...opticsWarnings);
-  const colour = colorRowsFor(spectrum, t, s.illuminants, s.observers, s.pathMm);
-  const change = changeStep(spectrum, t, colour, s);
+  const color = colorRowsFor(spectrum, t, s.illuminants, s.observers, s.pathMm);
+  const change = changeStep(spectrum, t, color, s);
   const series = seriesStep(spectrum, s, warnings);
-  const target = targetStep(spectrum, t, colour, s);
+  const target = targetStep(spectrum, t, color, s);
   const host = hostName(s);
   const bands = bandsStep(spectrum, host, warnings);
   const dopant = dopantStep(spectrum, bands.fit, s, warnings);
@@ -65,7 +65,7 @@ export function analyseSample(
     notes: s.notes ?? "",
     extra: s.extra,
     warnings,
-    colour,
+    color,
     change,
     series,
     target,

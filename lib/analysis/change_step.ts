@@ -5,8 +5,8 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import type { ColourRow } from "../cie/spectrum_colour.ts";
-import { colourChange } from "../cie/colour_change.ts";
+import type { ColorRow } from "../cie/spectrum_color.ts";
+import { colorChange } from "../cie/color_change.ts";
 import type { SampleSettings } from "./sample_settings.ts";
 import type { ChangeResult } from "./sample_result.ts";
 import { colorRowUnder } from "./color_step.ts";
@@ -15,11 +15,11 @@ import { colorRowUnder } from "./color_step.ts";
 export function changeStep(
   spectrum: Spectrum,
   t: Float64Array,
-  rows: ColourRow[],
+  rows: ColorRow[],
   s: SampleSettings,
 ): ChangeResult {
   const c = s.change;
-  const change = colourChange(spectrum.wavelengthNm, t, c.from, c.to, c.observer, c.adapt);
+  const change = colorChange(spectrum.wavelengthNm, t, c.from, c.to, c.observer, c.adapt);
   return {
     ...change,
     swatchFrom: colorRowUnder(rows, spectrum, t, c.from, c.observer).srgb,

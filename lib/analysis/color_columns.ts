@@ -7,12 +7,12 @@
  */
 import { roundTo } from "../numeric/round.ts";
 import { csvHeader } from "./csv_headers.ts";
-import type { ColourRow } from "../cie/spectrum_colour.ts";
+import type { ColorRow } from "../cie/spectrum_color.ts";
 
 /** A column of a colour table: the row key and the decimals kept in CSV. */
 export interface ColorColumn {
   /** Key in the JSON rows (its CSV header comes from `csvHeader`). */
-  key: keyof ColourRow;
+  key: keyof ColorRow;
   /** Decimals written in CSV (none: written as is). */
   decimals?: number;
 }
@@ -75,6 +75,6 @@ export function colorHeaders(): string[] {
 }
 
 /** The cells of one colour row, in {@linkcode COLOR_COLUMNS} order. */
-export function colorRowCells(row: ColourRow): (string | number)[] {
+export function colorRowCells(row: ColorRow): (string | number)[] {
   return COLOR_COLUMNS.map((c) => csvCell(row[c.key], c.decimals));
 }

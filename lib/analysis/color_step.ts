@@ -6,7 +6,7 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { transmittanceForPath } from "../optics/path_transmittance.ts";
-import { type ColourRow, spectrumColour } from "../cie/spectrum_colour.ts";
+import { type ColorRow, spectrumColor } from "../cie/spectrum_color.ts";
 import type { SampleSettings } from "./sample_settings.ts";
 
 /** Transmittance at the sample's reporting path, with what the optics had to say. */
@@ -25,8 +25,8 @@ export function colorRowsFor(
   illuminants: string[],
   observers: string[],
   pathMm?: number,
-): ColourRow[] {
-  return spectrumColour(spectrum, {
+): ColorRow[] {
+  return spectrumColor(spectrum, {
     illuminants,
     observers,
     transmittance: t,
@@ -36,12 +36,12 @@ export function colorRowsFor(
 
 /** Finds the row for a condition among rows already computed, or computes it. */
 export function colorRowUnder(
-  rows: ColourRow[],
+  rows: ColorRow[],
   spectrum: Spectrum,
   t: Float64Array,
   illuminant: string,
   observer: string,
-): ColourRow {
+): ColorRow {
   return rows.find((r) => r.illuminant === illuminant && r.observer === observer) ??
     colorRowsFor(spectrum, t, [illuminant], [observer])[0]!;
 }

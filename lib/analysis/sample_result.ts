@@ -4,8 +4,8 @@
  *
  * @module
  */
-import type { ColourRow } from "../cie/spectrum_colour.ts";
-import type { ColourChange } from "../cie/colour_change.ts";
+import type { ColorRow } from "../cie/spectrum_color.ts";
+import type { ColorChange } from "../cie/color_change.ts";
 import type { ThicknessSeries } from "../cie/thickness_series.ts";
 import type { TargetCheck } from "../dopant/target.ts";
 import type { BandFit } from "../bands/fit_bands.ts";
@@ -15,8 +15,8 @@ import type { TargetVerdict } from "../dopant/target_probability.ts";
 import type { Provenance } from "./provenance_step.ts";
 import type { ResolvedUncertaintySources } from "../cie/color_uncertainty.ts";
 
-/** The colour change of a sample, with the swatches of both colours. */
-export interface ChangeResult extends ColourChange {
+/** The colour change of a sample, with the swatches of both colors. */
+export interface ChangeResult extends ColorChange {
   /** sRGB swatch under the first illuminant. */
   swatchFrom: string;
   /** sRGB swatch under the second illuminant. */
@@ -138,7 +138,7 @@ export interface SampleResult {
   /** What the analysis wants the reader to know. */
   warnings: string[];
   /** Colour rows, one per illuminant and observer. */
-  colour: ColourRow[];
+  color: ColorRow[];
   /** The colour change. */
   change: ChangeResult;
   /** Colour against path length, when the thickness is known. */

@@ -5,7 +5,7 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import type { ColourRow } from "../cie/spectrum_colour.ts";
+import type { ColorRow } from "../cie/spectrum_color.ts";
 import { checkTarget } from "../dopant/target.ts";
 import type { SampleSettings } from "./sample_settings.ts";
 import type { TargetConditionCheck, TargetResult } from "./sample_result.ts";
@@ -15,7 +15,7 @@ import { colorRowUnder } from "./color_step.ts";
 export function targetStep(
   spectrum: Spectrum,
   t: Float64Array,
-  rows: ColourRow[],
+  rows: ColorRow[],
   s: SampleSettings,
 ): TargetResult | null {
   const goal = s.target;

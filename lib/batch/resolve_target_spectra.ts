@@ -1,5 +1,5 @@
 /**
- * Targets given as a reference spectrum: reads it and fills in its colours.
+ * Targets given as a reference spectrum: reads it and fills in its colors.
  *
  * @module
  */
@@ -7,7 +7,7 @@ import { readSpectraFromBytes } from "../io/read_spectra.ts";
 import { batchLimits } from "./batch_limits.ts";
 import { readFileLimited } from "./read_limited.ts";
 import { transmittanceForPath } from "../optics/path_transmittance.ts";
-import { spectrumColour } from "../cie/spectrum_colour.ts";
+import { spectrumColor } from "../cie/spectrum_color.ts";
 import { type BatchSettings, SettingsError } from "./settings_schema.ts";
 
 /**
@@ -29,7 +29,7 @@ export async function resolveTargetSpectra(settings: BatchSettings): Promise<voi
       );
     }
     const values = transmittanceForPath(spectrum!, t.spectrumPathMm).values;
-    const rows = spectrumColour(spectrum!, {
+    const rows = spectrumColor(spectrum!, {
       illuminants: [t.illuminant, ...t.also.map((c) => c.illuminant)],
       observers: [t.observer],
       transmittance: values,

@@ -44,7 +44,7 @@ export function resultsCsvHeader(extraColumns: string[]): string {
 /** The rows of one sample result. */
 export function resultsCsvRows(result: SampleResult, extraColumns: string[]): string {
   const t = result.target, d = result.dopant;
-  const rows = result.colour.map((c) => {
+  const rows = result.color.map((c) => {
     const here = t && t.observer === c.observer
       ? t.checks.find((k) => k.illuminant === c.illuminant)
       : undefined;

@@ -115,7 +115,7 @@ function target(v: unknown, where: string): TargetSetting {
     const r = (x ?? {}) as Record<string, unknown>;
     return { L: num(r.L, `${at}.L`), a: num(r.a, `${at}.a`), b: num(r.b, `${at}.b`), illuminant };
   };
-  let colours: TargetColor[];
+  let colors: TargetColor[];
   const t: Partial<TargetSetting> = {};
   if (o.spectrum !== undefined) {
     const ills = o.illuminants === undefined
@@ -123,7 +123,7 @@ function target(v: unknown, where: string): TargetSetting {
       : (Array.isArray(o.illuminants) ? o.illuminants : String(o.illuminants).split(",")).map((x) =>
         String(x).trim()
       );
-    colours = ills.map((
+    colors = ills.map((
       ill,
     ) => (check(() => getIlluminant(ill), `${where}.illuminants`),
       { L: NaN, a: NaN, b: NaN, illuminant: ill })
@@ -136,14 +136,14 @@ function target(v: unknown, where: string): TargetSetting {
     if (!o.under || typeof o.under !== "object") {
       throw new SettingsError(`Setting ${where}.under must map illuminants to L, a, b`);
     }
-    colours = Object.entries(o.under as Record<string, unknown>).map(([ill, x]) =>
+    colors = Object.entries(o.under as Record<string, unknown>).map(([ill, x]) =>
       lab(x, `${where}.under.${ill}`, ill)
     );
   } else {
-    colours = [lab(o, where, String(o.illuminant ?? "D65"))];
+    colors = [lab(o, where, String(o.illuminant ?? "D65"))];
   }
-  if (colours.length === 0) throw new SettingsError(`Setting ${where} names no target colour`);
-  return { ...colours[0]!, observer, toleranceDE00, also: colours.slice(1), ...t } as TargetSetting;
+  if (colors.length === 0) throw new SettingsError(`Setting ${where} names no target colour`);
+  return { ...colors[0]!, observer, toleranceDE00, also: colors.slice(1), ...t } as TargetSetting;
 }
 
 function check(f: () => unknown, where: string) {

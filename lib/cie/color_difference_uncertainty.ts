@@ -10,7 +10,7 @@
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { pathTransmittanceSensitivity } from "../optics/path_transmittance_sensitivity.ts";
 import { transmittanceForPath } from "../optics/path_transmittance.ts";
-import { colourChange } from "./colour_change.ts";
+import { colorChange } from "./color_change.ts";
 import type { AdaptationMethod } from "./adaptation.ts";
 import { adaptXyz } from "./adaptation.ts";
 import { deltaE2000 } from "./delta_e.ts";
@@ -54,7 +54,7 @@ function quadratic(g: number[], c: number[][], h: number[]): number {
  *
  * @param cov1 Covariance of lab1 (3×3); zeros for a fixed reference such as a target.
  * @param cov2 Covariance of lab2.
- * @param cov12 Cross-covariance [i][j] = cov(lab1_i, lab2_j); omit for independent colours.
+ * @param cov12 Cross-covariance [i][j] = cov(lab1_i, lab2_j); omit for independent colors.
  *
  * @example A target with no uncertainty: σ(ΔE00) along L* only is σ_L / S_L at L* = 50
  * ```ts
@@ -136,7 +136,7 @@ export function colorChangeUncertainty(
       (_, k) => deltaE2000(labOf(r1, k), labOf(r2, k)),
     );
     const t = transmittanceForPath(spectrum, options.pathMm, options.reflection).values;
-    const nominal = colourChange(nm, t, fromIll, toIll, observer, adapt).dE00;
+    const nominal = colorChange(nm, t, fromIll, toIll, observer, adapt).dE00;
     const { mean, sd } = meanAndSd(d);
     return {
       mode: "mc",

@@ -14,7 +14,7 @@ import { transmittanceForPath } from "../optics/path_transmittance.ts";
 import { getIlluminant } from "./illuminants.ts";
 import { type Lab, xyzToLab } from "./spaces.ts";
 import { tristimulusWeights, weightedXyz, type Xyz } from "./tristimulus.ts";
-import { hueDifferenceDeg } from "./colour_change.ts";
+import { hueDifferenceDeg } from "./color_change.ts";
 import {
   type ColorUncertainty,
   type ColorUncertaintyOptions,

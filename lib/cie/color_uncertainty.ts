@@ -423,7 +423,7 @@ export function uncertaintyNotes(
 /**
  * First-order (GUM) uncertainty of the colour of a spectrum under each illuminant × observer.
  *
- * @returns One {@linkcode ColorUncertainty} per row, in the order of `spectrumColour`.
+ * @returns One {@linkcode ColorUncertainty} per row, in the order of `spectrumColor`.
  * @throws {RangeError} When the rescaling needs a missing thickness, or a σ is negative.
  *
  * @example A perfect grey with 0.002 noise has a tiny a*, b* uncertainty

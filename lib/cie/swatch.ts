@@ -73,7 +73,7 @@ export function srgbEncode(v: number): number {
 }
 
 /** One display rendering of a colour. */
-export interface DisplayColour {
+export interface DisplayColor {
   /** Encoded values 0..1 after gamut mapping. */
   rgb: [number, number, number];
   /** Encoded values before mapping (may lie outside 0..1). */
@@ -85,8 +85,8 @@ export interface DisplayColour {
 
 /** A swatch: the colour as shown in sRGB and Display P3. */
 export interface Swatch {
-  srgb: DisplayColour;
-  p3: DisplayColour;
+  srgb: DisplayColor;
+  p3: DisplayColor;
   /** The D65-adapted CIELAB the display values came from. */
   labD65: { L: number; a: number; b: number };
 }
@@ -166,7 +166,7 @@ function render(
   m: Matrix,
   lab: { L: number; a: number; b: number },
   space: "srgb" | "p3",
-): DisplayColour {
+): DisplayColor {
   const L = Math.min(100, Math.max(0, lab.L));
   const exact = linearRgb(m, labToXyz(lab, DISPLAY_WHITE));
   const unmapped = exact.map((v) => Math.sign(v) * srgbEncode(Math.abs(v))) as [

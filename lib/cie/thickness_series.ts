@@ -6,7 +6,7 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { type ReflectionSettings, transmittanceForPath } from "../optics/path_transmittance.ts";
-import { colourFromXyz } from "./spectrum_colour.ts";
+import { colorFromXyz } from "./spectrum_color.ts";
 import { swatchFromXyz } from "./swatch.ts";
 import { tristimulusWeights, weightedXyz } from "./tristimulus.ts";
 
@@ -56,7 +56,7 @@ export function thicknessSeries(spectrum: Spectrum, options: SeriesOptions = {})
   const at = (pathMm: number) => {
     const t = transmittanceForPath(spectrum, pathMm, reflection).values;
     const xyz = weightedXyz(t, w);
-    return { xyz, c: colourFromXyz(xyz, w.white) };
+    return { xyz, c: colorFromXyz(xyz, w.white) };
   };
   const points: ThicknessPoint[] = [];
   for (let i = 0; i <= steps; i++) {

@@ -45,7 +45,7 @@ export interface AimProblem {
   path: number | { minMm: number; maxMm: number };
   /** Surface reflectance R(λ) of each face; omit for no surfaces. */
   surfaceReflectance?: Float64Array;
-  /** Target colours. */
+  /** Target colors. */
   targets: AimTarget[];
   /** Upper bound of each level (default 100× the level that gives α = 10 cm⁻¹ at its peak). */
   maxLevels?: number[];

@@ -6,7 +6,7 @@
  * @module
  */
 import { deltaE2000 } from "../cie/delta_e.ts";
-import { hueDifferenceDeg } from "../cie/colour_change.ts";
+import { hueDifferenceDeg } from "../cie/color_change.ts";
 import { type Lab, labToLch } from "../cie/spaces.ts";
 
 /** Result of comparing a colour to its target. */

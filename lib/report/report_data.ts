@@ -58,7 +58,7 @@ export interface ReportDetail {
   xy: { illuminant: string; observer: string; x: number; y: number; wx: number; wy: number }[];
   abFrom: [number, number];
   abTo: [number, number];
-  colour: {
+  color: {
     illuminant: string;
     observer: string;
     L: number;
@@ -147,7 +147,7 @@ export function reportRow(result: SampleResult, index: number): ReportRow {
       : null,
     warnings: result.warnings,
     notes: result.notes,
-    outOfGamut: result.colour.some((row) => row.srgbOutOfGamut),
+    outOfGamut: result.color.some((row) => row.srgbOutOfGamut),
   };
 }
 
@@ -185,7 +185,7 @@ export function reportDetail(result: SampleResult): ReportDetail {
         maxChromaPathMm: r(result.series.maxChromaPathMm, 2),
       }
       : null,
-    xy: result.colour.map((row) => {
+    xy: result.color.map((row) => {
       const sum = row.whiteX + row.whiteY + row.whiteZ;
       return {
         illuminant: row.illuminant,
@@ -198,7 +198,7 @@ export function reportDetail(result: SampleResult): ReportDetail {
     }),
     abFrom: [r(c.labFrom.a), r(c.labFrom.b)],
     abTo: [r(c.labTo.a), r(c.labTo.b)],
-    colour: result.colour.map((row) => ({
+    color: result.color.map((row) => ({
       illuminant: row.illuminant,
       observer: row.observer,
       L: r(row.L),

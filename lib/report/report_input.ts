@@ -41,7 +41,7 @@ export class ReportInputBuilder {
   /** Adds the next sample result, in results order. */
   add(result: SampleResult): void {
     const index = this.#samples++;
-    for (const row of result.colour) this.#observers.add(row.observer);
+    for (const row of result.color) this.#observers.add(row.observer);
     if (index < ROW_LIMIT) this.#rows.push(reportRow(result, index));
     if (index < this.#header.detailLimit) this.#details[index] = reportDetail(result);
     if (result.target) {

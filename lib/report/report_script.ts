@@ -48,7 +48,7 @@ export const REPORT_SCRIPT = `
     return { label: "spectral locus (" + OBS + "° observer)", data: pts, showLine: true, pointRadius: 0,
       borderColor: INK, borderWidth: 1.2, fill: false };
   }
-  function lightColour(ill) { return ill === FROM ? DAY : ill === TO ? LAMP : "#7b5ea7"; }
+  function lightColor(ill) { return ill === FROM ? DAY : ill === TO ? LAMP : "#7b5ea7"; }
   var FIRST = data.rows[0], FROM = FIRST ? FIRST.from : "D65", TO = FIRST ? FIRST.to : "A";
   // points: {illuminant, observer, x, y, wx, wy, sample?}; only the chosen observer is drawn
   function xyChart(canvas, points) {
@@ -61,9 +61,9 @@ export const REPORT_SCRIPT = `
     var sets = [], locus = locusDataset();
     if (locus) sets.push(locus);
     Object.keys(byIll).forEach(function (ill) {
-      sets.push({ label: "under " + ill, data: byIll[ill], pointRadius: 3.5, backgroundColor: lightColour(ill) });
+      sets.push({ label: "under " + ill, data: byIll[ill], pointRadius: 3.5, backgroundColor: lightColor(ill) });
       sets.push({ label: ill + " white", data: [{ x: whites[ill][0], y: whites[ill][1] }],
-        pointStyle: "crossRot", pointRadius: 7, borderColor: lightColour(ill), borderWidth: 2 });
+        pointStyle: "crossRot", pointRadius: 7, borderColor: lightColor(ill), borderWidth: 2 });
     });
     return new Chart(canvas, { type: "scatter", data: { datasets: sets },
       options: { scales: { x: { min: 0, max: 0.8, title: { display: true, text: OBS === "10" ? "x10" : "x" } },
@@ -209,7 +209,7 @@ export const REPORT_SCRIPT = `
     fact("measured thickness", d.thicknessMm === null ? "not given" : d.thicknessMm + " mm");
     if (d.polarisation) fact("polarisation", d.polarisation);
     if (d.host) fact("host", d.host);
-    d.colour.forEach(function (c) {
+    d.color.forEach(function (c) {
       fact(c.illuminant + " / " + c.observer + "°", "L* " + c.L + "  C* " + c.C + "  h " + c.h + "°" +
         (c.dominantNm === null ? "" : "  λ" + (c.complementary ? "c " : "d ") + c.dominantNm + " nm, pe " + c.purity));
     });

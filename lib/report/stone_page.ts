@@ -29,7 +29,7 @@ export function xyTitle(observer: string): string {
 }
 
 function swatches(d: ReportDetail): string {
-  return d.colour.map((c) =>
+  return d.color.map((c) =>
     `<figure class="light"><span class="swatch" style="background:${e(c.srgb)}"></span>` +
     `<figcaption>${e(c.illuminant)} · ${e(c.observer)}°${
       c.outOfGamut
@@ -38,7 +38,7 @@ function swatches(d: ReportDetail): string {
         }">${MARKS.outOfGamut.symbol}</span>`
         : ""
     }</figcaption></figure>`
-  ).join("") + (d.colour.some((c) =>
+  ).join("") + (d.color.some((c) =>
       c.outOfGamut
     )
     ? `<p class="legend">${MARKS.outOfGamut.symbol} ${e(MARKS.outOfGamut.text)}</p>`
@@ -47,7 +47,7 @@ function swatches(d: ReportDetail): string {
 
 function numbers(d: ReportDetail): string {
   return `<table class="numbers"><thead><tr><th>light</th><th>observer</th><th>L*</th><th>C*ab</th><th>h (°)</th><th>a*</th><th>b*</th><th>λd / λc (nm)</th></tr></thead><tbody>${
-    d.colour.map((c) =>
+    d.color.map((c) =>
       `<tr><td>${e(c.illuminant)}</td><td>${e(c.observer)}°</td><td>${n(c.L, 2)}</td><td>${
         n(c.C, 2)
       }</td><td>${n(c.h, 1)}</td><td>${n(c.a, 2)}</td><td>${n(c.b, 2)}</td><td>${

@@ -52,8 +52,8 @@ describe("analyseSample", () => {
       meta: { sample: "clear" },
     };
     const r = analyseSample(clear, "clear.csv", settings());
-    expect(r.colour.length).toBe(4);
-    for (const row of r.colour) {
+    expect(r.color.length).toBe(4);
+    for (const row of r.color) {
       expect(row.L).toBeCloseTo(100, 6);
       expect(row.a).toBeCloseTo(0, 6);
       expect(row.b).toBeCloseTo(0, 6);
@@ -65,7 +65,7 @@ describe("analyseSample", () => {
   it("a target at the sample's own colour gives ΔE00 0 under that light; a pass needs every light", () => {
     const first = analyseSample(slab(1), "s.csv", settings());
     const at = (ill: string) =>
-      first.colour.find((c) => c.illuminant === ill && c.observer === "2")!;
+      first.color.find((c) => c.illuminant === ill && c.observer === "2")!;
     const target = {
       L: at("D65").L,
       a: at("D65").a,
@@ -107,7 +107,7 @@ describe("analyseSample", () => {
     const r = analyseSample(s, "s.csv", settings());
     expect(r.series).toBeNull();
     expect(r.warnings.join(" ")).toMatch(/no thickness known/);
-    expect(r.colour.length).toBe(4);
+    expect(r.color.length).toBe(4);
   });
 });
 
@@ -115,7 +115,7 @@ describe("the uncertainty step", () => {
   it("gives σ per colour row and guard-banded verdicts (JCGM 106 decision rule)", () => {
     const base = analyseSample(slab(7), "s.csv", settings());
     expect(base.uncertainty).toBeNull(); // off unless asked for
-    const d65 = base.colour.find((c) => c.illuminant === "D65" && c.observer === "2")!;
+    const d65 = base.color.find((c) => c.illuminant === "D65" && c.observer === "2")!;
     const target = (dL: number) => ({
       L: d65.L + dL,
       a: d65.a,

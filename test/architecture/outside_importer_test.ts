@@ -8,13 +8,13 @@ describe("the library face for programs outside the repository", () => {
     const script = `${dir}/use_crystint.ts`;
     await Deno.writeTextFile(
       script,
-      `import { deltaE2000, readSpectraFromBytes, spectrumColour, VERSION } from ${
+      `import { deltaE2000, readSpectraFromBytes, spectrumColor, VERSION } from ${
         JSON.stringify(`file://${ROOT}lib/mod.ts`)
       };
 const rows = ["wavelength_nm,T"];
 for (let nm = 360; nm <= 830; nm += 5) rows.push(nm + "," + (nm > 600 ? 0.8 : 0.3));
 const [s] = readSpectraFromBytes(new TextEncoder().encode(rows.join("\\n")), "x.csv");
-const [row] = spectrumColour(s!, { illuminants: ["D65"], observers: ["2"] });
+const [row] = spectrumColor(s!, { illuminants: ["D65"], observers: ["2"] });
 console.log(JSON.stringify({ version: VERSION, L: row!.L, a: row!.a, dE: deltaE2000({ L: 50, a: 0, b: 0 }, { L: 51, a: 0, b: 0 }) }));
 `,
     );

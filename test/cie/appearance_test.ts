@@ -2,14 +2,14 @@ import { describe, it } from "node:test";
 import { expect } from "expect";
 import {
   adaptXyz,
-  colourChange,
+  colorChange,
   deltaE2000,
   dominantWavelength,
   GRID_NM,
   hueDifferenceDeg,
   metamerismIndex,
   spectralLocus,
-  spectrumColour,
+  spectrumColor,
   swatchFromXyz,
   thicknessSeries,
   xyzToLab,
@@ -30,7 +30,7 @@ describe("colour change between illuminants", () => {
   it("identity: a flat (neutral) spectrum changes by ΔE00 ≈ 0 under each illuminant's own white", () => {
     const flat = new Float64Array(471).fill(0.4);
     for (const [from, to] of [["D65", "A"], ["D65", "F11"], ["C", "D50"]]) {
-      const c = colourChange(GRID_NM, flat, from!, to!, "10");
+      const c = colorChange(GRID_NM, flat, from!, to!, "10");
       expect(c.dE00).toBeLessThan(1e-9);
     }
   });
@@ -39,7 +39,7 @@ describe("colour change between illuminants", () => {
     it(`${name}: ΔE00 D65→A equals ΔE00 from Argyll spec2cie's Lab, within 0.02`, async () => {
       const s = await fixture(name);
       for (const obs of ["2", "10"]) {
-        const c = colourChange(s.wavelengthNm, s.values, "D65", "A", obs);
+        const c = colorChange(s.wavelengthNm, s.values, "D65", "A", obs);
         const ref = argyll.fixtures[name]!;
         const lab1 = xyzToLab(xyz(ref[`D65/${obs}`]!), xyz(argyll.whites[`D65/${obs}`]!));
         const lab2 = xyzToLab(xyz(ref[`A/${obs}`]!), xyz(argyll.whites[`A/${obs}`]!));
@@ -90,7 +90,7 @@ describe("colour change between illuminants", () => {
   });
 
   it("with --adapt the neutral stays neutral against the first white", () => {
-    const c = colourChange(GRID_NM, new Float64Array(471).fill(0.5), "D65", "A", "2", "cat16");
+    const c = colorChange(GRID_NM, new Float64Array(471).fill(0.5), "D65", "A", "2", "cat16");
     expect(c.dE00).toBeLessThan(1e-6);
   });
 });
@@ -147,7 +147,7 @@ describe("dominant wavelength and purity (CIE 15 §9.1)", () => {
 describe("swatches and gamut", () => {
   it("a saturated red absorption fixture is flagged out of sRGB and the mapped value is inside", async () => {
     const s = await fixture("red_edge_1nm");
-    const [row] = spectrumColour(s, { illuminants: ["D65"], observers: ["2"] });
+    const [row] = spectrumColor(s, { illuminants: ["D65"], observers: ["2"] });
     expect(row!.srgbOutOfGamut).toBe(true);
     const sw = swatchFromXyz(row!, { X: row!.whiteX, Y: row!.whiteY, Z: row!.whiteZ });
     expect(sw.srgb.unmapped.some((v) => v < 0 || v > 1)).toBe(true);
@@ -159,7 +159,7 @@ describe("swatches and gamut", () => {
   });
   it("a grey is not flagged and shows as a grey (sRGB of D65 white is #ffffff)", async () => {
     const s = await fixture("neutral_grey_5nm");
-    const [row] = spectrumColour(s, { illuminants: ["D65"], observers: ["2"] });
+    const [row] = spectrumColor(s, { illuminants: ["D65"], observers: ["2"] });
     expect(row!.srgbOutOfGamut).toBe(false);
     const [r, g, b] = [1, 3, 5].map((i) => parseInt(row!.srgb.slice(i, i + 2), 16));
     expect(Math.max(r!, g!, b!) - Math.min(r!, g!, b!)).toBeLessThanOrEqual(1);
@@ -185,7 +185,7 @@ describe("pleochroism of a synthetic uniaxial pair", () => {
   });
   it("o and e bands 20 nm apart differ clearly; equal bands do not", () => {
     const lab = (s: Spectrum) => {
-      const [r] = spectrumColour(s, { illuminants: ["D65"], observers: ["10"] });
+      const [r] = spectrumColor(s, { illuminants: ["D65"], observers: ["10"] });
       return { L: r!.L, a: r!.a, b: r!.b };
     };
     const o = spectrum(band(555), "o"), e = spectrum(band(575), "e");

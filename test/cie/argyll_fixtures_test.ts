@@ -1,7 +1,7 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
 import { readSpectrumFile } from "../../lib/io/mod.ts";
-import { spectrumColour } from "../../lib/cie/mod.ts";
+import { spectrumColor } from "../../lib/cie/mod.ts";
 
 // Reference XYZ from Argyll CMS spec2cie; see test/fixtures/colour/PROVENANCE.md.
 const here = new URL("../fixtures/colour/", import.meta.url);
@@ -24,7 +24,7 @@ describe("XYZ of fixture spectra against Argyll CMS spec2cie", () => {
       const [spectrum] = await readSpectrumFile(
         decodeURIComponent(new URL(`${name}.csv`, here).pathname),
       );
-      const rows = spectrumColour(spectrum!, { illuminants: ["D65", "A"], observers: ["2", "10"] });
+      const rows = spectrumColor(spectrum!, { illuminants: ["D65", "A"], observers: ["2", "10"] });
       expect(rows.length).toBe(4);
       for (const row of rows) {
         const [X, Y, Z] = reference.fixtures[name]![`${row.illuminant}/${row.observer}`]!;

@@ -10,7 +10,7 @@ import {
   LUMINANCE_FLOOR_Y,
   rgbToXyzMatrix,
   spectralLocus,
-  spectrumColour,
+  spectrumColor,
   swatchFromXyz,
   tristimulusWeights,
   XYZ_TO_P3,
@@ -31,7 +31,7 @@ const ALL = { illuminants: ["D65", "A", "F11"], observers: ["2", "10"] };
 
 describe("luminance floor (Y < 0.01 on the Y = 100 scale)", () => {
   it("a black stone (T = 0): chromaticity, hue, dominant wavelength and purity null with a note; no gamut flags", () => {
-    for (const row of spectrumColour(flat(0), ALL)) {
+    for (const row of spectrumColor(flat(0), ALL)) {
       expect([row.X, row.Y, row.Z]).toEqual([0, 0, 0]);
       expect([row.x, row.y, row.uPrime, row.vPrime, row.h]).toEqual([null, null, null, null, null]);
       expect(row.dominantNm).toBeNull();
@@ -48,8 +48,8 @@ describe("luminance floor (Y < 0.01 on the Y = 100 scale)", () => {
   it("a very dark slab with a red window (Y ≈ 0.005) is below the floor; ten times brighter is not", () => {
     // a red-passing slab: T rises past 600 nm, scaled so Y lands either side of the floor
     const shape = grid5.map((nm) => 1 / (1 + Math.exp(-(nm - 620) / 8)));
-    const y1 = spectrumColour(spectrum(grid5, shape), { illuminants: ["D65"] })[0]!.Y;
-    const dark = spectrumColour(
+    const y1 = spectrumColor(spectrum(grid5, shape), { illuminants: ["D65"] })[0]!.Y;
+    const dark = spectrumColor(
       spectrum(grid5, shape.map((v) => (v * 0.5 * LUMINANCE_FLOOR_Y) / y1)),
       {
         illuminants: ["D65"],
@@ -58,7 +58,7 @@ describe("luminance floor (Y < 0.01 on the Y = 100 scale)", () => {
     expect(dark.Y).toBeCloseTo(0.005, 12);
     expect(dark.x).toBeNull();
     expect(dark.dominantNm).toBeNull();
-    const dim = spectrumColour(
+    const dim = spectrumColor(
       spectrum(grid5, shape.map((v) => (v * 10 * LUMINANCE_FLOOR_Y) / y1)),
       {
         illuminants: ["D65"],
@@ -124,7 +124,7 @@ describe("display spaces on the white of the D65 tables", () => {
   });
 
   it("a perfect transmitter is inside sRGB and P3 under every illuminant and observer and shows #ffffff (CIE 15:2018: it is the white)", () => {
-    for (const row of spectrumColour(flat(1), ALL)) {
+    for (const row of spectrumColor(flat(1), ALL)) {
       expect(row.srgbOutOfGamut).toBe(false);
       expect(row.p3OutOfGamut).toBe(false);
       expect(row.srgb).toBe("#ffffff");
@@ -135,7 +135,7 @@ describe("display spaces on the white of the D65 tables", () => {
 
   it("near-white (T between 0.9999 and 1, a clear stone read to four decimals) is inside both gamuts", () => {
     const values = grid5.map((nm) => 1 - 1e-4 * Math.round((1 + Math.sin(nm / 23)) / 2));
-    for (const row of spectrumColour(spectrum(grid5, values), ALL)) {
+    for (const row of spectrumColor(spectrum(grid5, values), ALL)) {
       expect(row.srgbOutOfGamut).toBe(false);
       expect(row.p3OutOfGamut).toBe(false);
     }
@@ -188,7 +188,7 @@ describe("excitation purity never above 1 (CIE 15:2018 §9.1)", () => {
         fc.constantFrom("D65", "A"),
         fc.constantFrom("2", "10"),
         (values, ill, obs) => {
-          const [row] = spectrumColour(spectrum(nm, values), {
+          const [row] = spectrumColor(spectrum(nm, values), {
             illuminants: [ill],
             observers: [obs],
           });

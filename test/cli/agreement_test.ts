@@ -73,7 +73,7 @@ describe("every command gives the same stone the same L*a*b* under the same cond
     );
     expect(batch.code).toBe(0);
     const results = JSON.parse(await Deno.readTextFile(`${dir}/out/results.json`));
-    const row = results.samples[0].colour.find((r: { illuminant: string; observer: string }) =>
+    const row = results.samples[0].color.find((r: { illuminant: string; observer: string }) =>
       r.illuminant === "D65" && r.observer === "2"
     );
     expect([row.L, row.a, row.b].map((v: number) => v.toFixed(6))).toEqual(

@@ -14,7 +14,7 @@ function csvRows(text: string): number[][] {
 }
 
 /** The colour rows of `crystint color --json` for a file. */
-async function colourOf(file: string, ...extra: string[]) {
+async function colorOf(file: string, ...extra: string[]) {
   const r = await runCli(
     "color",
     file,
@@ -79,8 +79,8 @@ describe("crystint convert", () => {
       const src = fixture(`colour/${name}`);
       const out = `${dir}/${name.replace(".csv", ".jdx")}`;
       expect((await runCli("convert", src, "--to", "jcamp", "--out", out)).code).toBe(0);
-      const a = await colourOf(src, "--ordinate", "transmittance");
-      const b = await colourOf(out);
+      const a = await colorOf(src, "--ordinate", "transmittance");
+      const b = await colorOf(out);
       expect(b.length).toBe(a.length);
       a.forEach((row, i) => {
         for (const k of ["X", "Y", "Z", "L", "a", "b"]) {

@@ -9,7 +9,7 @@ import { labToLch, xyzToLab, xyzToUvPrime, xyzToXy } from "./spaces.ts";
 import type { InterpolationMethod } from "./interpolate.ts";
 
 /** One colour result: a sample under one illuminant and one observer. */
-export interface ColourRow {
+export interface ColorRow {
   sample: string;
   file: string;
   illuminant: string;
@@ -66,7 +66,7 @@ export const BELOW_FLOOR_NOTE =
   `Y below ${LUMINANCE_FLOOR_Y}: too dark for chromaticity, hue and dominant wavelength`;
 
 /** The colour coordinates of one stimulus, without the luminance floor. */
-export interface ColourCoordinates {
+export interface ColorCoordinates {
   X: number;
   Y: number;
   Z: number;
@@ -82,7 +82,7 @@ export interface ColourCoordinates {
 }
 
 /** All coordinates of a stimulus from its XYZ and the reference white. */
-export function colourFromXyz(xyz: Xyz, white: Xyz): ColourCoordinates {
+export function colorFromXyz(xyz: Xyz, white: Xyz): ColorCoordinates {
   const { x, y } = xyzToXy(xyz);
   const { u, v } = xyzToUvPrime(xyz);
   const lab = xyzToLab(xyz, white);

@@ -7,9 +7,9 @@
  * a second now that the weights are linear in the number of points.
  */
 import { readSpectraFromBytes } from "../lib/io/read_spectra.ts";
-import { spectrumColour } from "../lib/cie/spectrum_colour.ts";
+import { spectrumColor } from "../lib/cie/spectrum_color.ts";
 import { tristimulusWeights, weightedXyz } from "../lib/cie/tristimulus.ts";
-import { conditionsOf, spectraColourRows, spectraToXyz } from "../lib/cie/spectra_colour_many.ts";
+import { conditionsOf, spectraColorRows, spectraToXyz } from "../lib/cie/spectra_color_many.ts";
 import { transmittanceToXyz } from "../lib/cie/tristimulus.ts";
 
 const nm = Array.from({ length: 401 }, (_, i) => 380 + i);
@@ -28,11 +28,11 @@ Deno.bench("read one CSV of 10,000 spectra × 401 points", { group: "colour" }, 
 
 const spectra = readSpectraFromBytes(bytes, "bench.csv");
 Deno.bench(
-  "colour of 10,000 spectra, D65 + A, 2° + 10°, spectrumColour one by one",
+  "colour of 10,000 spectra, D65 + A, 2° + 10°, spectrumColor one by one",
   { group: "colour", baseline: true },
   () => {
     for (const s of spectra) {
-      spectrumColour(s, {
+      spectrumColor(s, {
         illuminants: ["D65", "A"],
         observers: ["2", "10"],
       });
@@ -46,10 +46,10 @@ const samples = spectra.map((s) => s.meta.sample);
 const twoByTwo = conditionsOf(["D65", "A"], ["2", "10"]);
 const oneByOne = conditionsOf(["D65"], ["2"]);
 Deno.bench(
-  "colour of 10,000 spectra, D65 + A, 2° + 10°, full rows in one pass (spectraColourRows)",
+  "colour of 10,000 spectra, D65 + A, 2° + 10°, full rows in one pass (spectraColorRows)",
   { group: "colour" },
   () => {
-    spectraColourRows(onGrid, twoByTwo, { samples, file: "bench.csv" });
+    spectraColorRows(onGrid, twoByTwo, { samples, file: "bench.csv" });
   },
 );
 Deno.bench("XYZ of 10,000 spectra, D65 + A, 2° + 10°, one pass (spectraToXyz)", {
@@ -115,12 +115,12 @@ function cgats(): string {
 }
 
 async function comparePeer(): Promise<void> {
-  const ours1 = best(5, () => spectraColourRows(onGrid, oneByOne, { samples }));
-  const ours4 = best(5, () => spectraColourRows(onGrid, twoByTwo, { samples }));
+  const ours1 = best(5, () => spectraColorRows(onGrid, oneByOne, { samples }));
+  const ours4 = best(5, () => spectraColorRows(onGrid, twoByTwo, { samples }));
   const xyz4 = best(5, () => spectraToXyz(onGrid, twoByTwo));
   const withRead4 = best(3, () => {
     const s = readSpectraFromBytes(bytes, "bench.csv");
-    spectraColourRows(
+    spectraColorRows(
       { wavelengthNm: s[0]!.wavelengthNm, values: s.map((x) => x.values) },
       twoByTwo,
       { samples },

@@ -2,9 +2,9 @@ import { describe, it } from "node:test";
 import { expect } from "expect";
 import {
   conditionsOf,
-  spectraColourRows,
+  spectraColorRows,
   spectraToXyz,
-  spectrumColour,
+  spectrumColor,
   tristimulusWeights,
 } from "../../lib/cie/mod.ts";
 import type { Spectrum } from "../../lib/spectrum/mod.ts";
@@ -47,18 +47,18 @@ const GRIDS: [string, Float64Array<ArrayBuffer>][] = [
   ],
 ];
 
-describe("spectraColourRows() and spectraToXyz()", () => {
+describe("spectraColorRows() and spectraToXyz()", () => {
   const conditions = conditionsOf(["D65", "A"], ["2", "10"]);
   for (const [name, nm] of GRIDS) {
-    it(`${name}: rows identical to spectrumColour one spectrum at a time, columns and flat alike`, () => {
+    it(`${name}: rows identical to spectrumColor one spectrum at a time, columns and flat alike`, () => {
       const cols = messySpectra(nm, 12, 7);
       const flat = new Float64Array(cols.length * nm.length);
       cols.forEach((c, i) => flat.set(c, i * nm.length));
       const labels = { samples: cols.map((_, i) => `s${i + 1}`), file: "lot.csv" };
-      const fromColumns = spectraColourRows({ wavelengthNm: nm, values: cols }, conditions, labels);
-      const fromFlat = spectraColourRows({ wavelengthNm: nm, values: flat }, conditions, labels);
+      const fromColumns = spectraColorRows({ wavelengthNm: nm, values: cols }, conditions, labels);
+      const fromFlat = spectraColorRows({ wavelengthNm: nm, values: flat }, conditions, labels);
       const oneByOne = cols.flatMap((v, i) =>
-        spectrumColour(asSpectrum(nm, v, i), {
+        spectrumColor(asSpectrum(nm, v, i), {
           illuminants: ["D65", "A"],
           observers: ["2", "10"],
           transmittance: v,

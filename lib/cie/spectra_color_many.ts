@@ -11,8 +11,8 @@ import { getIlluminant, type Illuminant } from "./illuminants.ts";
 import { GRID_LENGTH } from "./grid.ts";
 import { resampleTo1nm } from "./interpolate.ts";
 import { type TristimulusWeights, tristimulusWeights } from "./tristimulus.ts";
-import type { ColourRow } from "./spectrum_colour.ts";
-import { colourRow } from "./_colour_row.ts";
+import type { ColorRow } from "./spectrum_color.ts";
+import { colorRow } from "./_color_row.ts";
 
 /** Spectra on one grid: one array per spectrum, or one flat array spectrum after spectrum. */
 export interface SpectraOnGrid {
@@ -23,7 +23,7 @@ export interface SpectraOnGrid {
 }
 
 /** One viewing condition. */
-export interface ColourCondition {
+export interface ColorCondition {
   illuminant: string | Illuminant;
   /** `"2"` or `"10"`. */
   observer: string;
@@ -41,12 +41,12 @@ export interface SpectraXyz {
   xyz: Float64Array<ArrayBuffer>;
 }
 
-/** Every illuminant × observer, illuminants outer (the order of `spectrumColour`'s rows). */
+/** Every illuminant × observer, illuminants outer (the order of `spectrumColor`'s rows). */
 export function conditionsOf(
   illuminants: (string | Illuminant)[],
   observers: string[],
-): ColourCondition[] {
-  const out: ColourCondition[] = [];
+): ColorCondition[] {
+  const out: ColorCondition[] = [];
   for (const illuminant of illuminants) {
     for (const observer of observers) out.push({ illuminant, observer });
   }
@@ -61,7 +61,7 @@ export function conditionsOf(
  *
  * @example Two perfect transmitters under D65 2° and A 10° give the two whites
  * ```ts
- * import { spectraToXyz } from "./spectra_colour_many.ts";
+ * import { spectraToXyz } from "./spectra_color_many.ts";
  * const nm = Float64Array.from({ length: 81 }, (_, i) => 380 + 5 * i);
  * const r = spectraToXyz({ wavelengthNm: nm, values: new Float64Array(162).fill(1) }, [
  *   { illuminant: "D65", observer: "2" },
@@ -72,7 +72,7 @@ export function conditionsOf(
  * }
  * ```
  */
-export function spectraToXyz(spectra: SpectraOnGrid, conditions: ColourCondition[]): SpectraXyz {
+export function spectraToXyz(spectra: SpectraOnGrid, conditions: ColorCondition[]): SpectraXyz {
   const nm = spectra.wavelengthNm;
   const n = nm.length;
   const flat = spectra.values instanceof Float64Array ? spectra.values : undefined;
@@ -134,7 +134,7 @@ export function spectraToXyz(spectra: SpectraOnGrid, conditions: ColourCondition
   return { count, weights, illuminants, xyz };
 }
 
-/** Labels of the rows from {@linkcode spectraColourRows}. */
+/** Labels of the rows from {@linkcode spectraColorRows}. */
 export interface SpectraRowLabels {
   /** Sample name per spectrum; default `s1`, `s2`, … */
   samples?: readonly string[];
@@ -147,16 +147,16 @@ export interface SpectraRowLabels {
 /**
  * Full colour rows (XYZ, x y, u′v′, CIELAB, LCh, dominant wavelength and purity, swatches,
  * luminance floor) of many spectra on one grid, for every condition, spectrum after spectrum
- * and condition after condition: the same rows `spectrumColour` gives one spectrum at a time.
+ * and condition after condition: the same rows `spectrumColor` gives one spectrum at a time.
  */
-export function spectraColourRows(
+export function spectraColorRows(
   spectra: SpectraOnGrid,
-  conditions: ColourCondition[],
+  conditions: ColorCondition[],
   labels: SpectraRowLabels = {},
-): ColourRow[] {
+): ColorRow[] {
   const { count, weights, illuminants, xyz } = spectraToXyz(spectra, conditions);
   const m = conditions.length;
-  const rows: ColourRow[] = new Array(count * m);
+  const rows: ColorRow[] = new Array(count * m);
   const pathMm = labels.pathMm ?? null;
   const file = labels.file;
   for (let s = 0; s < count; s++) {
@@ -165,7 +165,7 @@ export function spectraColourRows(
     const carrier = { meta };
     for (let c = 0; c < m; c++) {
       const o = 3 * (s * m + c);
-      rows[s * m + c] = colourRow(
+      rows[s * m + c] = colorRow(
         carrier,
         illuminants[c]!,
         pathMm,

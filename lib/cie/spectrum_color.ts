@@ -9,19 +9,19 @@ import type { Spectrum } from "../spectrum/spectrum.ts";
 import { getIlluminant, type Illuminant } from "./illuminants.ts";
 import { tristimulusWeights, weightedXyz } from "./tristimulus.ts";
 import { type ReflectionSettings, transmittanceForPath } from "../optics/path_transmittance.ts";
-import { colourRow } from "./_colour_row.ts";
-import type { ColourRow } from "./colour_coordinates.ts";
+import { colorRow } from "./_color_row.ts";
+import type { ColorRow } from "./color_coordinates.ts";
 
 export {
   BELOW_FLOOR_NOTE,
-  type ColourCoordinates,
-  colourFromXyz,
-  type ColourRow,
+  type ColorCoordinates,
+  colorFromXyz,
+  type ColorRow,
   LUMINANCE_FLOOR_Y,
-} from "./colour_coordinates.ts";
+} from "./color_coordinates.ts";
 
-/** Choices for {@linkcode spectrumColour}. */
-export interface ColourOptions {
+/** Choices for {@linkcode spectrumColor}. */
+export interface ColorOptions {
   /** Illuminants by name or as objects; default D65 and A. */
   illuminants?: (string | Illuminant)[];
   /** Observers `"2"` / `"10"`; default `"2"`. */
@@ -40,19 +40,19 @@ export interface ColourOptions {
  * @throws {RangeError} When the path rescaling needs a thickness that is unknown, or the data
  *   do not reach the visible range.
  */
-export function spectrumColour(spectrum: Spectrum, options: ColourOptions = {}): ColourRow[] {
+export function spectrumColor(spectrum: Spectrum, options: ColorOptions = {}): ColorRow[] {
   const illuminants = options.illuminants ?? ["D65", "A"];
   const observers = options.observers ?? ["2"];
   const t = options.transmittance ??
     transmittanceForPath(spectrum, options.pathMm, options.reflection).values;
   const pathMm = options.pathMm ?? spectrum.thicknessMm ?? null;
-  const rows: ColourRow[] = [];
+  const rows: ColorRow[] = [];
   for (const ill of illuminants) {
     const illuminant = typeof ill === "string" ? getIlluminant(ill) : ill;
     for (const observer of observers) {
       const w = tristimulusWeights(spectrum.wavelengthNm, illuminant, observer);
       const xyz = weightedXyz(t, w);
-      rows.push(colourRow(spectrum, illuminant.name, pathMm, xyz, w));
+      rows.push(colorRow(spectrum, illuminant.name, pathMm, xyz, w));
     }
   }
   return rows;

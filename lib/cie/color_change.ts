@@ -14,7 +14,7 @@ import { type Lab, labToLch, xyzToLab } from "./spaces.ts";
 import { tristimulusWeights, weightedXyz } from "./tristimulus.ts";
 
 /** Colour change of one sample from one illuminant to another. */
-export interface ColourChange {
+export interface ColorChange {
   from: string;
   to: string;
   observer: string;
@@ -46,14 +46,14 @@ export function hueDifferenceDeg(h1: number, h2: number): number {
  * @param adapt `"none"` (each under its own white) or a transform taking the second colour to
  *   the first white before comparing.
  */
-export function colourChange(
+export function colorChange(
   wavelengthNm: ArrayLike<number>,
   values: ArrayLike<number>,
   from: string | Illuminant,
   to: string | Illuminant,
   observer: string,
   adapt: AdaptationMethod | "none" = "none",
-): ColourChange {
+): ColorChange {
   const fromIll = typeof from === "string" ? getIlluminant(from) : from;
   const toIll = typeof to === "string" ? getIlluminant(to) : to;
   const w1 = tristimulusWeights(wavelengthNm, fromIll, observer);

@@ -1,6 +1,6 @@
 /**
- * One colour row from XYZ under one condition (shared by `spectrumColour` and
- * `spectraColourRows`), with the luminance floor of CIE 15 practice applied.
+ * One colour row from XYZ under one condition (shared by `spectrumColor` and
+ * `spectraColorRows`), with the luminance floor of CIE 15 practice applied.
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import type { TristimulusWeights, Xyz } from "./tristimulus.ts";
@@ -9,48 +9,48 @@ import { dominantWavelength } from "./dominant_wavelength.ts";
 import { swatchFromXyz } from "./swatch.ts";
 import {
   BELOW_FLOOR_NOTE,
-  colourFromXyz,
-  type ColourRow,
+  colorFromXyz,
+  type ColorRow,
   LUMINANCE_FLOOR_Y,
-} from "./colour_coordinates.ts";
+} from "./color_coordinates.ts";
 
 /**
  * The colour row of one stimulus under one condition, with the luminance floor applied.
  *
  * @param xyz Tristimulus values from the weights `w`.
  */
-export function colourRow(
+export function colorRow(
   spectrum: Pick<Spectrum, "meta">,
   illuminantName: string,
   pathMm: number | null,
   xyz: Xyz,
   w: TristimulusWeights,
-): ColourRow {
-  const colour = colourFromXyz(xyz, w.white);
+): ColorRow {
+  const color = colorFromXyz(xyz, w.white);
   const dark = !(xyz.Y >= LUMINANCE_FLOOR_Y);
   const white = xyzToXy(w.white);
   const dominant = dark
     ? undefined
-    : dominantWavelength(colour.x, colour.y, white.x, white.y, w.observer);
+    : dominantWavelength(color.x, color.y, white.x, white.y, w.observer);
   const swatch = swatchFromXyz(xyz, w.white);
-  const row: ColourRow = {
+  const row: ColorRow = {
     sample: spectrum.meta.sample,
     file: spectrum.meta.sourceFile ?? "",
     illuminant: illuminantName,
     observer: w.observer,
     pathMm,
-    X: colour.X,
-    Y: colour.Y,
-    Z: colour.Z,
-    x: dark ? null : colour.x,
-    y: dark ? null : colour.y,
-    uPrime: dark ? null : colour.uPrime,
-    vPrime: dark ? null : colour.vPrime,
-    L: colour.L,
-    a: colour.a,
-    b: colour.b,
-    C: colour.C,
-    h: dark ? null : colour.h,
+    X: color.X,
+    Y: color.Y,
+    Z: color.Z,
+    x: dark ? null : color.x,
+    y: dark ? null : color.y,
+    uPrime: dark ? null : color.uPrime,
+    vPrime: dark ? null : color.vPrime,
+    L: color.L,
+    a: color.a,
+    b: color.b,
+    C: color.C,
+    h: dark ? null : color.h,
     whiteX: w.white.X,
     whiteY: w.white.Y,
     whiteZ: w.white.Z,
