@@ -6,7 +6,7 @@
  * calibrate and predict dopant levels, aim a doping at a target colour, or run the whole
  * analysis of one sample. Everything here is pure computation except `readSpectrumFile`, which
  * reads one file (needs `--allow-read`). The batch runner and the report writer live in the
- * CLI's layers (`lib/batch`, `lib/report`), not here.
+ * CLI's layers (`lib/batch`, `lib/report`), not here; each area's own `mod.ts` has the rest.
  *
  * @example Colour of a stone at its finished path, from an export's bytes
  * ```ts
@@ -104,25 +104,23 @@ export { type NeededValue, NeedsValueError } from "./spectrum/needs_value_error.
 export { InputError } from "./io/input_error.ts";
 export { type ReadOptions, readSpectraFromBytes } from "./io/read_spectra.ts";
 export { readSpectrumFile } from "./io/read_file.ts";
+export { type JcampWriteOptions, writeJcamp } from "./io/write_jcamp.ts";
 
 export { type ColorOptions, type ColorRow, spectrumColor } from "./cie/spectrum_color.ts";
-export { type Lab, labToLch, type Lch, xyzToLab } from "./cie/spaces.ts";
-export { deltaE2000, deltaE76, deltaE94, deltaECmc } from "./cie/delta_e.ts";
+export type { Lab } from "./cie/spaces.ts";
+export { deltaE2000, deltaE94 } from "./cie/delta_e.ts";
 export { type ColorChange, colorChange } from "./cie/color_change.ts";
-export { type ThicknessSeries, thicknessSeries } from "./cie/thickness_series.ts";
-export { getIlluminant, type Illuminant, ILLUMINANT_NAMES } from "./cie/illuminants.ts";
+export { getIlluminant, type Illuminant } from "./cie/illuminants.ts";
+export {
+  type ColorUncertainty,
+  spectrumColorUncertainty,
+  type UncertaintySources,
+} from "./cie/color_uncertainty.ts";
 
 export { type ReflectionSettings, transmittanceForPath } from "./optics/path_transmittance.ts";
-export { getHost, parseSellmeier } from "./optics/refractive_index.ts";
 
-export {
-  type BandFit,
-  fitBandsCm1,
-  type FitOptions,
-  fitSpectrumBands,
-  type FittedBand,
-} from "./bands/fit_bands.ts";
-export { assignBands, type BandAssignment } from "./bands/assign_bands.ts";
+export { type BandFit, fitBandsCm1, type FitOptions, type FittedBand } from "./bands/fit_bands.ts";
+export { analyseBands, type BandAnalysis } from "./bands/analyse_bands.ts";
 
 export {
   type Calibration,
@@ -131,12 +129,68 @@ export {
 } from "./dopant/linear_calibration.ts";
 export { spectrumResponse } from "./dopant/response_metric.ts";
 export { aimDoping, type AimProblem, type AimResult, predictLab } from "./dopant/aim_doping.ts";
-export { checkTarget, type TargetCheck } from "./dopant/target.ts";
-export { fitScheil } from "./dopant/scheil.ts";
-export { smakulaDexter } from "./dopant/smakula_dexter.ts";
+export { targetPassProbability, type TargetProbability } from "./dopant/target_probability.ts";
 
 export { analyseFile, analyseSample } from "./analysis/analyse_sample.ts";
 export type { SampleSettings } from "./analysis/sample_settings.ts";
 export type { SampleResult } from "./analysis/sample_result.ts";
 export type { ResultsDocument } from "./analysis/results_document.ts";
+export { type ConvertOptions, convertSpectrum } from "./analysis/convert_spectrum.ts";
 export { VERSION } from "./version.ts";
+
+// Types the functions above take and return (documented where they are defined).
+export type { ConvertedSpectrum, SpectralGrid } from "./analysis/convert_spectrum.ts";
+export type { Provenance } from "./analysis/provenance_step.ts";
+export type { ResultsError, ResultsHeader } from "./analysis/results_document.ts";
+export type {
+  BandsResult,
+  ChangeResult,
+  DopantResult,
+  TargetResult,
+  UncertaintyResult,
+} from "./analysis/sample_result.ts";
+export type {
+  ChangeSetting,
+  SeriesSetting,
+  SheetValues,
+  TargetSetting,
+  UncertaintySetting,
+} from "./analysis/sample_settings.ts";
+export type { BandAnalysisOptions, EdgeReport, HeldParameter } from "./bands/analyse_bands.ts";
+export type { BandAssignment } from "./bands/assign_bands.ts";
+export type { BandShape } from "./bands/band_model.ts";
+export type { BandCandidate } from "./bands/detect_bands.ts";
+export type { BaselineTerm, FittedBaseline, ModelTried } from "./bands/fit_bands.ts";
+export type { ExcludedRange } from "./bands/usable_range.ts";
+export type { AdaptationMethod } from "./cie/adaptation.ts";
+export type {
+  ColorUncertaintyOptions,
+  LabSd,
+  ResolvedUncertaintySources,
+  SourceName,
+} from "./cie/color_uncertainty.ts";
+export type { DeltaE2000Options, DeltaE94Options } from "./cie/delta_e.ts";
+export type { InterpolationMethod } from "./cie/interpolate.ts";
+export type { ThicknessSeries } from "./cie/thickness_series.ts";
+export type { AimTarget, DopantSpectrum } from "./dopant/aim_doping.ts";
+export type { CalibrationMode, CalibrationPoint, Prediction } from "./dopant/linear_calibration.ts";
+export type { MetricOptions, Response, ResponseMetric } from "./dopant/response_metric.ts";
+export type { TargetProbabilityOptions, TargetVerdict } from "./dopant/target_probability.ts";
+export type { InputHint, InputProblem } from "./io/input_error.ts";
+export type { ReadLimits } from "./io/read_limits.ts";
+export type { ColumnOptions } from "./io/spectrum_columns.ts";
+export type { Dispersion, HostEntry } from "./optics/refractive_index.ts";
+export type { AxisUnit } from "./spectrum/axis.ts";
+export type { FileValues, OrdinateKind, ReadWarning, ValueSource } from "./spectrum/spectrum.ts";
+export type { SourcedValue } from "./analysis/provenance_step.ts";
+export type { CalibrationSummary, ReportHeader } from "./analysis/results_document.ts";
+export type { ColorRowUncertainty, TargetConditionCheck } from "./analysis/sample_result.ts";
+export type { TargetColor } from "./analysis/sample_settings.ts";
+export type { CatalogueBand } from "./bands/data/band_catalogue.ts";
+export type { SpectrumFitOptions } from "./bands/fit_bands.ts";
+export type { ExclusionReason } from "./bands/usable_range.ts";
+export type { ThicknessPoint } from "./cie/thickness_series.ts";
+export type { AlphaBase } from "./io/spectrum_columns.ts";
+export type { FileValue } from "./spectrum/spectrum.ts";
+export type { UsableRangeOptions } from "./bands/usable_range.ts";
+export type { TargetCheck } from "./dopant/target.ts";

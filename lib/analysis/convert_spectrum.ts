@@ -19,8 +19,11 @@ import type { Quantity, Spectrum } from "../spectrum/spectrum.ts";
 
 /** An even grid START:STOP:STEP on an axis. */
 export interface SpectralGrid {
+  /** First grid value. */
   start: number;
+  /** Last grid value. */
   stop: number;
+  /** Step. */
   step: number;
   /** Unit of start, stop and step. @default "nm" */
   axis?: AxisUnit;
@@ -36,6 +39,7 @@ export interface ConvertOptions {
 
 /** A converted spectrum and the notes that say what was done to it. */
 export interface ConvertedSpectrum {
+  /** The converted spectrum. */
   spectrum: Spectrum;
   /** Interpolation method used, when resampled. */
   method?: InterpolationMethod;

@@ -21,13 +21,21 @@ export interface BandStart {
 
 /** A fitted band with 1σ standard errors (null when held at a bound or not determined). */
 export interface FittedBand {
+  /** Band shape (Gaussian in wavenumber, or Lorentzian for sharp lines). */
   shape: BandShape;
+  /** Centre, cm⁻¹. */
   centerCm1: number;
+  /** σ of the centre, cm⁻¹; null when held at a bound. */
   centerCm1Sigma: number | null;
+  /** Centre, nm. */
   centerNm: number;
+  /** σ of the centre, nm; null when held. */
   centerNmSigma: number | null;
+  /** Full width at half maximum, cm⁻¹. */
   fwhmCm1: number;
+  /** σ of the width; null when held. */
   fwhmCm1Sigma: number | null;
+  /** Peak height in the fitted ordinate. */
   height: number;
   /** σ of the height (linear, never held); Infinity when the data do not determine it. */
   heightSigma: number;
@@ -45,12 +53,19 @@ export interface FittedBand {
  * edge.amplitude · exp((ν̃ − edge.refCm1)/edge.widthCm1) (Urbach, Phys. Rev. 92, 1324 (1953)).
  */
 export interface FittedBaseline {
+  /** Constant term. */
   b0: number;
+  /** Linear term (in t). */
   b1: number;
+  /** Quadratic term (in t). */
   b2: number;
+  /** Coefficient of the (ν̃/20000)⁴ scattering term. */
   scatter: number;
+  /** Centre of the fitted range, cm⁻¹. */
   midCm1: number;
+  /** Half-width of the fitted range, cm⁻¹. */
   halfCm1: number;
+  /** Urbach-type edge term, when the model keeps it. */
   edge?: { amplitude: number; widthCm1: number; widthCm1Sigma: number | null; refCm1: number };
 }
 

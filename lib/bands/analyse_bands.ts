@@ -30,17 +30,23 @@ export interface BandAnalysisOptions extends SpectrumFitOptions {
 
 /** The absorption edge of a spectrum. */
 export interface EdgeReport {
+  /** Tauc exponent used: direct (r = 1/2) or indirect (r = 2) transitions. */
   exponent: "direct" | "indirect";
   /** Tauc gap, eV, or null with `message` when there is none to give. */
   gapEv: number | null;
+  /** Standard uncertainty of the gap, eV. */
   gapEvSigma: number | null;
   /** The Tauc window, eV. */
   fromEv: number | null;
+  /** Upper end of the Tauc window, eV. */
   toEv: number | null;
   /** Urbach energy, eV, or null when no exponential tail was found. */
   urbachEv: number | null;
+  /** Standard uncertainty of the Urbach energy, eV. */
   urbachEvSigma: number | null;
+  /** Lower end of the Urbach window, eV. */
   urbachFromEv: number | null;
+  /** Upper end of the Urbach window, eV. */
   urbachToEv: number | null;
   /** Why a value is missing, in words. */
   message?: string;
@@ -48,33 +54,51 @@ export interface EdgeReport {
 
 /** A parameter held at a bound. */
 export interface HeldParameter {
+  /** Index of the band in `bands`. */
   band: number;
+  /** Which parameter is held. */
   parameter: "centerCm1" | "fwhmCm1";
+  /** The bound it is held at. */
   value: number;
 }
 
 /** Result of {@linkcode analyseBands}. */
 export interface BandAnalysis {
+  /** Sample name. */
   sample: string;
+  /** What was fitted: absorbance (decadic) or α (cm⁻¹). */
   ordinate: BandFit["ordinate"];
+  /** Fitted bands. */
   bands: FittedBand[];
+  /** Fitted baseline (with the edge term when kept). */
   baseline: BandFit["baseline"];
+  /** RMS of the residual. */
   residualRms: number;
+  /** Noise σ of the ordinate, from the residual of a smooth fit on the measured grid. */
   noiseSigma: number;
+  /** χ² per degree of freedom of the final fit. */
   reducedChi2: number;
+  /** Whether the fit converged. */
   converged: boolean;
+  /** Assignment hints from the catalogue. */
   assignments: BandAssignment[];
   /** Stretches left out of detection and fitting. */
   excluded: ExcludedRange[];
+  /** What the analysis wants the reader to know. */
   warnings: string[];
+  /** The information criterion the model was chosen by. */
   criterion: BandFit["criterion"];
+  /** Every model tried, with its criterion values. */
   models: ModelTried[];
+  /** Parameters held at a bound (left out of the covariance). */
   held: HeldParameter[];
   /** The bands as α, cm⁻¹ (natural), when the thickness is known and the ordinate is absorbance. */
   bandsAlpha?: FittedBand[];
   /** How α is defined in `bandsAlpha`. */
   alphaBase?: "natural";
+  /** The absorption edge, when a Tauc analysis was asked for. */
   edge?: EdgeReport;
+  /** Data, model and σ on the fitted wavenumber grid. */
   curve: BandFit["curve"];
 }
 

@@ -15,14 +15,21 @@ import type { Polarisation } from "../spectrum/spectrum.ts";
 
 /** A candidate assignment of one fitted band. */
 export interface BandAssignment {
+  /** Index of the fitted band. */
   bandIndex: number;
+  /** Ion, e.g. Cr3+. */
   ion: string;
+  /** Host of the catalogue entry. */
   host: string;
+  /** Transition or band name. */
   transition: string;
   /** 0..1; 1 is an exact match of position and width. */
   score: number;
+  /** Why it matches (position and width against the entry). */
   reason: string;
+  /** Published source of the entry. */
   source: string;
+  /** published, or from memory (never decisive on its own). */
   status: CatalogueBand["status"];
 }
 

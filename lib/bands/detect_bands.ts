@@ -11,8 +11,11 @@ import { resampleLinear } from "../spectrum/linear_resample.ts";
 
 /** A band candidate with rough starting values for the fit. */
 export interface BandCandidate {
+  /** Centre, cm⁻¹. */
   centerCm1: number;
+  /** Width, cm⁻¹. */
   fwhmCm1: number;
+  /** Height in the ordinate. */
   height: number;
   /** Second-derivative depth in units of its noise. */
   significance: number;

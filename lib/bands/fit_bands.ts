@@ -30,16 +30,21 @@ import { residualStructure } from "./residual_structure.ts";
 import { ordinateNoise, smoothResidual } from "./ordinate_noise.ts";
 import { type ExcludedRange, usableRange, type UsableRangeOptions } from "./usable_range.ts";
 
-export type { FittedBand, FittedBaseline } from "./_fit_model.ts";
+export type { BaselineTerm, FittedBand, FittedBaseline } from "./_fit_model.ts";
 
 /** One model tried during model selection. */
 export interface ModelTried {
   /** Number of bands. */
   bands: number;
+  /** Whether the model has the edge term. */
   edge: boolean;
+  /** Number of parameters. */
   parameters: number;
+  /** Weighted χ². */
   chi2: number;
+  /** Akaike information criterion. */
   aic: number;
+  /** Bayesian information criterion, n·ln(χ²/n) + k·ln n. */
   bic: number;
   /** True for the model kept. */
   chosen: boolean;
@@ -47,7 +52,9 @@ export interface ModelTried {
 
 /** Result of a band fit. */
 export interface BandFit {
+  /** Fitted bands. */
   bands: FittedBand[];
+  /** Fitted baseline. */
   baseline: FittedBaseline;
   /** RMS of data − model over the fitted points, ordinate units. */
   residualRms: number;
@@ -55,7 +62,9 @@ export interface BandFit {
   noiseSigma: number;
   /** χ²/(n − p) with the per-point noise σ: near 1 when the model and the noise are right. */
   reducedChi2: number;
+  /** Whether the fit converged. */
   converged: boolean;
+  /** Iterations used. */
   iterations: number;
   /** What the ordinate was: absorbance (decadic) or alpha (cm⁻¹). */
   ordinate: "absorbance" | "alpha";

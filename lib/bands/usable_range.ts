@@ -19,8 +19,11 @@ export type ExclusionReason =
 
 /** A stretch left out of detection and fitting. */
 export interface ExcludedRange {
+  /** Start, nm. */
   fromNm: number;
+  /** End, nm. */
   toNm: number;
+  /** Why (saturation, photometric floor, clipping, edge). */
   reason: ExclusionReason;
 }
 

@@ -15,20 +15,35 @@ import { tristimulusWeights, weightedXyz } from "./tristimulus.ts";
 
 /** Colour change of one sample from one illuminant to another. */
 export interface ColorChange {
+  /** First illuminant. */
   from: string;
+  /** Second illuminant. */
   to: string;
+  /** Observer. */
   observer: string;
+  /** Adaptation before comparing, or none (each under its own white). */
   adapt: AdaptationMethod | "none";
+  /** ΔE00 between the two colours (Sharma, Wu & Dalal 2005). */
   dE00: number;
+  /** ΔE*ab. */
   dEab: number;
+  /** ΔL*. */
   dL: number;
+  /** ΔC*ab. */
   dC: number;
+  /** Signed hue difference, degrees, −180…180. */
   dh: number;
+  /** CIELAB under the first illuminant. */
   labFrom: Lab;
+  /** CIELAB under the second. */
   labTo: Lab;
+  /** C*ab under the first illuminant. */
   chromaFrom: number;
+  /** C*ab under the second. */
   chromaTo: number;
+  /** h_ab under the first illuminant, degrees. */
   hueFrom: number;
+  /** h_ab under the second, degrees. */
   hueTo: number;
 }
 

@@ -10,30 +10,47 @@ import type { InterpolationMethod } from "./interpolate.ts";
 
 /** One colour result: a sample under one illuminant and one observer. */
 export interface ColorRow {
+  /** Sample name. */
   sample: string;
+  /** File the spectrum came from. */
   file: string;
+  /** Illuminant name. */
   illuminant: string;
+  /** Observer, `"2"` (CIE 1931) or `"10"` (CIE 1964). */
   observer: string;
   /** Path length the colour is computed for, mm; null when the measured path is unknown. */
   pathMm: number | null;
+  /** Tristimulus X (Y = 100 for a perfect transmitter). */
   X: number;
+  /** Tristimulus Y. */
   Y: number;
+  /** Tristimulus Z. */
   Z: number;
   /** Chromaticity x, y, u′, v′; null below the luminance floor (Y < 0.01), see `notes`. */
   x: number | null;
+  /** Chromaticity y. */
   y: number | null;
+  /** CIE 1976 u′. */
   uPrime: number | null;
+  /** CIE 1976 v′. */
   vPrime: number | null;
+  /** CIELAB L*. */
   L: number;
+  /** CIELAB a*. */
   a: number;
+  /** CIELAB b*. */
   b: number;
+  /** Chroma C*ab. */
   C: number;
   /** Hue angle h_ab in degrees 0–360; null below the luminance floor. */
   h: number | null;
   /** Reference white used for CIELAB (the illuminant's own white, Y = 100). */
   whiteX: number;
+  /** Y of the reference white (100). */
   whiteY: number;
+  /** Z of the reference white. */
   whiteZ: number;
+  /** How the data were carried to the 1 nm grid (CIE 167). */
   method: InterpolationMethod;
   /** True when the data did not span 360–830 nm and end values were extended. */
   extrapolated: boolean;
@@ -42,13 +59,17 @@ export interface ColorRow {
    * below the luminance floor.
    */
   dominantNm: number | null;
+  /** Whether `dominantNm` is a complementary wavelength (purple colours). */
   complementary: boolean;
   /** Excitation purity 0..1 (never above 1); null where `dominantNm` is. */
   purity: number | null;
   /** Display swatch (sRGB hex after Bradford adaptation to D65, gamut-mapped when flagged). */
   srgb: string;
+  /** Whether the colour lies outside sRGB (the swatch is chroma-reduced). */
   srgbOutOfGamut: boolean;
+  /** Display P3 swatch as a CSS color() string. */
   p3: string;
+  /** Whether the colour lies outside Display P3. */
   p3OutOfGamut: boolean;
   /** Why values are null (the luminance floor); absent when every value is defined. */
   notes?: string[];

@@ -54,9 +54,13 @@ export interface ResolvedUncertaintySources {
   noiseSource: "given" | "estimated";
   /** Ordinate the noise and offset are in. */
   ordinate: Spectrum["quantity"];
+  /** Zero/100 % level error used, same unit as the noise. */
   offsetSd: number;
+  /** Wavelength-scale error used, nm. */
   wavelengthSdNm: number;
+  /** Thickness uncertainty used, mm. */
   thicknessSdMm: number;
+  /** Path uncertainty used, mm. */
   pathSdMm: number;
 }
 
@@ -65,20 +69,29 @@ export type SourceName = "offset" | "wavelength" | "thickness" | "path";
 
 /** Standard uncertainty of L*, a*, b* from one source alone. */
 export interface LabSd {
+  /** σ of L*. */
   LSd: number;
+  /** σ of a*. */
   aSd: number;
+  /** σ of b*. */
   bSd: number;
 }
 
 /** Uncertainty of one colour row (one illuminant × observer); plain JSON. */
 export interface ColorUncertainty {
+  /** Illuminant of the row. */
   illuminant: string;
+  /** Observer of the row. */
   observer: string;
   /** `linear`: first order (JCGM 100); `mc`: Monte Carlo (JCGM 101). */
   mode: "linear" | "mc";
+  /** σ of L* (k = 1). */
   LSd: number;
+  /** σ of a*. */
   aSd: number;
+  /** σ of b*. */
   bSd: number;
+  /** σ of C*ab. */
   CSd: number;
   /** σ of the hue angle in degrees; null at C* = 0, where the hue is undefined. */
   hSd: number | null;
@@ -86,12 +99,17 @@ export interface ColorUncertainty {
   labCovariance: number[][];
   /** What each source alone contributes (first order; absent for Monte Carlo). */
   budget?: Record<"noise" | SourceName, LabSd>;
+  /** The sources used. */
   sources: ResolvedUncertaintySources;
+  /** What the numbers leave out or could not include. */
   notes: string[];
   /** Monte Carlo only: number of draws, seed, mean and 95 % probabilistically symmetric intervals. */
   draws?: number;
+  /** Monte Carlo only: the seed. */
   seed?: number;
+  /** Monte Carlo only: the mean L*a*b* of the draws. */
   labMean?: Lab;
+  /** Monte Carlo only: probabilistically symmetric 95 % intervals. */
   interval95?: Record<"L" | "a" | "b" | "C" | "h", [number, number]>;
 }
 
@@ -105,6 +123,7 @@ export interface ColorUncertaintyOptions {
   pathMm?: number;
   /** Surface treatment of the rescaling. @default { reflection: "none" } */
   reflection?: ReflectionSettings;
+  /** The uncertainty sources; noise is estimated when not given. */
   sources?: UncertaintySources;
 }
 

@@ -22,8 +22,11 @@ export function deltaE76(lab1: Lab, lab2: Lab): number {
 
 /** Parametric factors of CIE94; defaults are the graphic-arts set (kL 1, K1 0.045, K2 0.015). */
 export interface DeltaE94Options {
+  /** Lightness weight (1 for graphic arts, 2 for textiles). */
   kL?: number;
+  /** Chroma constant (0.045 graphic arts). */
   k1?: number;
+  /** Hue constant (0.015 graphic arts). */
   k2?: number;
 }
 
@@ -39,8 +42,11 @@ export function deltaE94(lab1: Lab, lab2: Lab, options: DeltaE94Options = {}): n
 
 /** Parametric factors kL, kC, kH of CIEDE2000 (all 1 by default, the reference conditions). */
 export interface DeltaE2000Options {
+  /** Parametric lightness factor (1). */
   kL?: number;
+  /** Parametric chroma factor (1). */
   kC?: number;
+  /** Parametric hue factor (1). */
   kH?: number;
 }
 

@@ -19,6 +19,7 @@ import { tabulatedTo1nm } from "./_tabulated.ts";
 export interface Illuminant {
   /** Canonical name, e.g. `D65`, `A`, `F11`, `D5500K`, or `custom:<file>`. */
   readonly name: string;
+  /** What it is, in words, with its source. */
   readonly description: string;
   /** Identity for caches: the name for built-ins, name plus a digest of the SPD for custom ones. */
   readonly key: string;

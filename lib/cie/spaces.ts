@@ -8,8 +8,11 @@ import type { Xyz } from "./tristimulus.ts";
 
 /** CIELAB coordinates. */
 export interface Lab {
+  /** Lightness L*. */
   L: number;
+  /** a* (green–red). */
   a: number;
+  /** b* (blue–yellow). */
   b: number;
 }
 

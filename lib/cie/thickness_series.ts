@@ -12,22 +12,33 @@ import { tristimulusWeights, weightedXyz } from "./tristimulus.ts";
 
 /** One point of a thickness series. */
 export interface ThicknessPoint {
+  /** Path, mm. */
   pathMm: number;
+  /** L* at that path. */
   L: number;
+  /** C*ab. */
   C: number;
+  /** h_ab, degrees; null below the luminance floor. */
   h: number;
+  /** a*. */
   a: number;
+  /** b*. */
   b: number;
+  /** sRGB swatch. */
   srgb: string;
 }
 
 /** A thickness series under one illuminant and observer. */
 export interface ThicknessSeries {
+  /** Illuminant. */
   illuminant: string;
+  /** Observer. */
   observer: string;
+  /** The colour at each path. */
   points: ThicknessPoint[];
   /** Path of maximum C*ab (refined by golden-section search between the grid points). */
   maxChromaPathMm: number;
+  /** Largest C*ab over the paths. */
   maxChroma: number;
   /** Path where L* reaches the target, when a target was asked for and is reachable. */
   targetLightnessPathMm?: number;

@@ -38,18 +38,27 @@ export interface TargetProbabilityOptions {
 
 /** Result of a target check with risk; plain JSON. */
 export interface TargetProbability {
+  /** Probability that the true colour is within tolerance. */
   passProbability: number;
   /** Standard error of the probability itself (Monte Carlo: √(P(1−P)/M); normal: 0). */
   probabilitySe: number;
+  /** pass, fail or undecided (guard bands). */
   verdict: TargetVerdict;
+  /** ΔE00 of the measured colour from the target. */
   dE00: number;
   /** First-order σ of ΔE00 to the target. */
   dE00Sd: number;
+  /** The tolerance. */
   toleranceDE00: number;
+  /** Smallest probability that is a pass. */
   passAt: number;
+  /** Largest probability that is a fail. */
   failAt: number;
+  /** How the probability was computed. */
   method: "mc" | "normal" | "draws";
+  /** Monte Carlo draws. */
   draws?: number;
+  /** Monte Carlo seed. */
   seed?: number;
   /** The decision rule in words. */
   rule: string;

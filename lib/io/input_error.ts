@@ -24,6 +24,7 @@ export type InputProblem =
 
 /** What a caller could supply to settle the problem (the reader never names CLI flags). */
 export interface InputHint {
+  /** What the caller should state. */
   need: "axis" | "ordinate" | "thickness";
   /** Values that would be accepted, e.g. `["nm", "um", "cm-1", "ev"]`. */
   choices?: string[];
@@ -31,12 +32,24 @@ export interface InputHint {
 
 /** A problem with one input file, located to a line where possible. */
 export class InputError extends Error {
+  /** The file. */
   readonly file: string;
+  /** The line, when known (1-based). */
   readonly line: number | undefined;
+  /** The kind of problem. */
   readonly problem: InputProblem;
   /** What would settle the problem, when the file leaves a value undetermined. */
   readonly hint: InputHint | undefined;
 
+  /**
+   * Locates a problem in an input file; the message reads `file:line: detail`.
+   *
+   * @param problem The kind of problem.
+   * @param file The file.
+   * @param line The 1-based line, when known.
+   * @param detail What is wrong, in sentence case, with the bad value quoted.
+   * @param hint What would settle it, when the file leaves a value undetermined.
+   */
   constructor(
     problem: InputProblem,
     file: string,

@@ -30,7 +30,9 @@ export { parseThicknessMm } from "./read_metadata.ts";
 
 /** Overrides a user can give when the file does not say, or says it wrongly. */
 export interface ReadOptions {
+  /** What the values are, when the file does not say (or says wrongly). */
   ordinate?: OrdinateKind;
+  /** The x axis unit, when the file does not say. */
   axis?: AxisUnit;
   /** Thickness of the measured slab in mm (overrides the file's metadata). */
   thicknessMm?: number;

@@ -15,6 +15,8 @@ export class NeedsValueError extends RangeError {
   readonly need: NeededValue;
 
   /**
+   * Says what could not be done and which value would let it go on.
+   *
    * @param message What could not be done, in sentence case, without a final period.
    * @param need The value that is missing.
    */

@@ -3,6 +3,7 @@
  *
  * @module
  */
+import type { AxisUnit } from "./axis.ts";
 
 /** What the ordinate of a spectrum measures. */
 export type Quantity = "transmittance" | "absorbance" | "alpha" | "reflectance";
@@ -19,15 +20,14 @@ export type OrdinateKind =
   | "reflectance"
   | "percent-reflectance";
 
-/** Spectral axis units a file may use (see `axis.ts`). */
-type FileAxisUnit = "nm" | "um" | "cm-1" | "ev";
-
 /** Where an input value came from; precedence option > sheet > file > settings > default. */
 export type ValueSource = "option" | "sheet" | "file" | "settings" | "default";
 
 /** One value as the file states it, with where in the file it was read. */
 export interface FileValue<T> {
+  /** The value. */
   value: T;
+  /** Always `file`. */
   source: "file";
   /** 1-based line the value was read from, when it came from one line. */
   line?: number;
@@ -39,16 +39,23 @@ export interface FileValue<T> {
 
 /** What the file itself says about the values the analysis layer reconciles. */
 export interface FileValues {
+  /** Thickness the file states, mm. */
   thicknessMm?: FileValue<number>;
+  /** Polarisation the file states. */
   polarisation?: FileValue<Polarisation>;
+  /** Host the file names (free text). */
   host?: FileValue<string>;
+  /** Ordinate the file states. */
   ordinate?: FileValue<OrdinateKind>;
-  axis?: FileValue<FileAxisUnit>;
+  /** Axis unit the file states or implies. */
+  axis?: FileValue<AxisUnit>;
 }
 
 /** A note from reading a file, said once per file; `need` names what would settle it. */
 export interface ReadWarning {
+  /** The note, in words. */
   message: string;
+  /** What would settle it (a machine hint). */
   need?: "axis" | "ordinate" | "thickness" | "polarisation";
 }
 

@@ -11,10 +11,15 @@
 
 /** One catalogue band. */
 export interface CatalogueBand {
+  /** Ion. */
   ion: string;
+  /** Host crystal. */
   host: string;
+  /** Transition or band name. */
   transition: string;
+  /** Centre, cm⁻¹. */
   centerCm1: number;
+  /** Typical width, cm⁻¹. */
   fwhmCm1: number;
   /** Polarisation behaviour in words (E⊥c = ordinary ray, E∥c = extraordinary). */
   polarisation: string;
@@ -22,7 +27,9 @@ export interface CatalogueBand {
   ray?: "o" | "e";
   /** A component seen only beside another band of the same ion: that band's transition. */
   requires?: string;
+  /** Where the figures come from. */
   source: string;
+  /** published, or from memory (unverified). */
   status: "published" | "from memory, unverified";
 }
 

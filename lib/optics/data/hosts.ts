@@ -18,13 +18,19 @@ export type Dispersion =
 
 /** A host crystal and the source of its indices. */
 export interface HostEntry {
+  /** Host name. */
   name: string;
+  /** Other names it is known by. */
   aliases: string[];
+  /** Chemical formula. */
   formula: string;
+  /** Optical class. */
   optics: "isotropic" | "uniaxial" | "biaxial";
   /** Principal directions: `n` (isotropic), `o`/`e` (uniaxial), `a`/`b`/`c` (biaxial). */
   axes: Record<string, Dispersion>;
+  /** Wavelength range of the dispersion fit, µm. */
   validUm: [number, number];
+  /** Published source of the dispersion formula. */
   source: string;
 }
 
