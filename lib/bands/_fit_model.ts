@@ -6,6 +6,7 @@
  *
  * @module
  */
+import { wavenumberToNm } from "../spectrum/axis.ts";
 import { bandArea, type BandShape, FWHM_PER_SIGMA } from "./band_model.ts";
 import { type SeparableModel, variableProjection } from "../numeric/variable_projection.ts";
 
@@ -207,8 +208,8 @@ export function fitModelOnce(data: FitData, spec: ModelSpec): ModelFit {
       shape: b.shape,
       centerCm1: c,
       centerCm1Sigma: sc,
-      centerNm: 1e7 / c,
-      centerNmSigma: sc === null ? null : (1e7 / (c * c)) * sc,
+      centerNm: wavenumberToNm(c),
+      centerNmSigma: sc === null ? null : (wavenumberToNm(c) / c) * sc, // |dλ/dν̃| = 10⁷/ν̃²
       fwhmCm1: f,
       fwhmCm1Sigma: sf,
       height: h,

@@ -13,6 +13,7 @@
  *
  * @module
  */
+import { nmToWavenumber, wavenumberToNm } from "../spectrum/axis.ts";
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { spectrumAbsorbance } from "../spectrum/ordinate.ts";
 import { type BandCandidate, detectBands } from "./detect_bands.ts";
@@ -393,7 +394,7 @@ function toBandFit(
     }
   }
   for (const f of structure.features.slice(0, 3)) {
-    const nm = (1e7 / f.centerCm1).toFixed(0);
+    const nm = wavenumberToNm(f.centerCm1).toFixed(0);
     warnings.push(
       f.sign > 0
         ? `residual above noise near ${nm} nm: an unresolved band?`
@@ -492,9 +493,11 @@ export function fitSpectrumBands(
   options: SpectrumFitOptions = {},
   noise: ReturnType<typeof spectrumNoise> = spectrumNoise(spectrum, options),
 ): BandFit {
-  const x = spectrum.wavelengthNm.map((nm) => 1e7 / nm);
+  const x = spectrum.wavelengthNm.map(nmToWavenumber);
   const opts: FitOptions = { ...options, sigma: noise.sigma, usable: noise.usable.usable };
-  if (options.rangeNm) opts.rangeCm1 = [1e7 / options.rangeNm[1], 1e7 / options.rangeNm[0]];
+  if (options.rangeNm) {
+    opts.rangeCm1 = [nmToWavenumber(options.rangeNm[1]), nmToWavenumber(options.rangeNm[0])];
+  }
   if (options.resolutionNm !== undefined && options.minFwhmCm1 === undefined) {
     const r = options.resolutionNm;
     opts.minFwhmCm1 = (c) => (c * c * r) / 1e7;

@@ -5,26 +5,25 @@
  *
  * @module
  */
+import type { Matrix3 } from "../numeric/matrix3.ts";
 import type { Xyz } from "./tristimulus.ts";
 
-type Matrix = readonly [readonly number[], readonly number[], readonly number[]];
-
 /** Bradford cone-response matrix (Lam 1985). */
-export const BRADFORD: Matrix = [
+export const BRADFORD: Matrix3 = [
   [0.8951, 0.2664, -0.1614],
   [-0.7502, 1.7135, 0.0367],
   [0.0389, -0.0685, 1.0296],
 ];
 
 /** CAT16 matrix M16 (Li et al. 2017, eq. 2). */
-export const CAT16: Matrix = [
+export const CAT16: Matrix3 = [
   [0.401288, 0.650173, -0.051461],
   [-0.250268, 1.204414, 0.045854],
   [-0.002079, 0.048952, 0.953127],
 ];
 
 /** Multiplies a 3×3 matrix by a vector. */
-export function multiply(m: Matrix, v: readonly number[]): [number, number, number] {
+export function multiply(m: Matrix3, v: readonly number[]): [number, number, number] {
   const v0 = v[0]!, v1 = v[1]!, v2 = v[2]!;
   const r0 = m[0]!, r1 = m[1]!, r2 = m[2]!;
   return [
@@ -35,7 +34,7 @@ export function multiply(m: Matrix, v: readonly number[]): [number, number, numb
 }
 
 /** Inverse of a 3×3 matrix. */
-export function invert(m: Matrix): Matrix {
+export function invert(m: Matrix3): Matrix3 {
   const [a, b, c] = m[0]!, [d, e, f] = m[1]!, [g, h, i] = m[2]!;
   const A = e! * i! - f! * h!, B = -(d! * i! - f! * g!), C = d! * h! - e! * g!;
   const det = a! * A + b! * B + c! * C;

@@ -15,13 +15,12 @@
 // without our deno.json (the import map applies only inside the project).
 // deno-lint-ignore no-import-prefix
 import Color from "npm:color@^5.0.0";
+import type { Matrix3 } from "../numeric/matrix3.ts";
 import { adaptXyz, invert, multiply } from "./adaptation.ts";
 import type { Xyz } from "./tristimulus.ts";
 import { labToXyz, xyzToLab, xyzToXy } from "./spaces.ts";
 import { GRID_NM } from "./grid.ts";
 import { tristimulusWeights } from "./tristimulus.ts";
-
-type Matrix = readonly [readonly number[], readonly number[], readonly number[]];
 
 /**
  * sRGB / Display P3 reference white, Y = 100: the white of the D65 tables the colours use
@@ -33,23 +32,23 @@ export const DISPLAY_WHITE: Xyz = { ...tristimulusWeights(GRID_NM, "D65", "2").w
 const DISPLAY_WHITE_XY = xyzToXy(DISPLAY_WHITE);
 
 /** RGB → XYZ matrix from primaries and white chromaticities (SMPTE RP 177 construction). */
-export function rgbToXyzMatrix(primaries: [number, number][], white: [number, number]): Matrix {
+export function rgbToXyzMatrix(primaries: [number, number][], white: [number, number]): Matrix3 {
   const cols = primaries.map(([x, y]) => [x / y, 1, (1 - x - y) / y]);
-  const p: Matrix = [
+  const p: Matrix3 = [
     [cols[0]![0]!, cols[1]![0]!, cols[2]![0]!],
     [cols[0]![1]!, cols[1]![1]!, cols[2]![1]!],
     [cols[0]![2]!, cols[1]![2]!, cols[2]![2]!],
   ];
   const [wx, wy] = white;
   const s = multiply(invert(p), [wx / wy, 1, (1 - wx - wy) / wy]);
-  return [0, 1, 2].map((r) => [0, 1, 2].map((c) => p[r]![c]! * s[c]!)) as unknown as Matrix;
+  return [0, 1, 2].map((r) => [0, 1, 2].map((c) => p[r]![c]! * s[c]!)) as unknown as Matrix3;
 }
 
 /**
  * XYZ (Y = 1) → linear sRGB: IEC 61966-2-1:1999 primaries (0.64, 0.33), (0.30, 0.60), (0.15,
  * 0.06) on {@linkcode DISPLAY_WHITE}; equals the standard's 4-decimal matrix to its precision.
  */
-export const XYZ_TO_SRGB: Matrix = invert(
+export const XYZ_TO_SRGB: Matrix3 = invert(
   rgbToXyzMatrix([[0.64, 0.33], [0.3, 0.6], [0.15, 0.06]], [
     DISPLAY_WHITE_XY.x,
     DISPLAY_WHITE_XY.y,
@@ -57,7 +56,7 @@ export const XYZ_TO_SRGB: Matrix = invert(
 );
 
 /** XYZ (Y = 1) → linear Display P3: SMPTE EG 432-1 primaries on {@linkcode DISPLAY_WHITE}. */
-export const XYZ_TO_P3: Matrix = invert(
+export const XYZ_TO_P3: Matrix3 = invert(
   rgbToXyzMatrix(
     [[0.68, 0.32], [0.265, 0.69], [0.15, 0.06]],
     [DISPLAY_WHITE_XY.x, DISPLAY_WHITE_XY.y],
@@ -91,7 +90,7 @@ export interface Swatch {
   labD65: { L: number; a: number; b: number };
 }
 
-function linearRgb(m: Matrix, xyz: Xyz): [number, number, number] {
+function linearRgb(m: Matrix3, xyz: Xyz): [number, number, number] {
   return multiply(m, [xyz.X / 100, xyz.Y / 100, xyz.Z / 100]);
 }
 
@@ -133,7 +132,7 @@ const QUICK_MARGIN = 1e-9;
  * cubes by multiplication; only when a channel lies within 1e-9 of a gamut edge, where that
  * rounding could matter, is the decision taken with `t ** 3` exactly as {@linkcode labToXyz}.
  */
-function insideAt(m: Matrix, L: number, a: number, b: number, yLinear: number): boolean {
+function insideAt(m: Matrix3, L: number, a: number, b: number, yLinear: number): boolean {
   const fy = (L + 16) / 116;
   const tx = fy + a / 500, tz = fy - b / 200;
   const x = DISPLAY_WHITE.X * (tx > 6 / 29 ? tx * tx * tx : (108 / 841) * (tx - 4 / 29)) / 100;
@@ -151,7 +150,7 @@ function insideAt(m: Matrix, L: number, a: number, b: number, yLinear: number): 
 }
 
 /** The gamut decision with the arithmetic of {@linkcode labToXyz} and {@linkcode inGamut}. */
-function insideExactly(m: Matrix, tx: number, tz: number, yLinear: number): boolean {
+function insideExactly(m: Matrix3, tx: number, tz: number, yLinear: number): boolean {
   const x = DISPLAY_WHITE.X * labInverse(tx) / 100;
   const z = DISPLAY_WHITE.Z * labInverse(tz) / 100;
   for (let r = 0; r < 3; r++) {
@@ -163,7 +162,7 @@ function insideExactly(m: Matrix, tx: number, tz: number, yLinear: number): bool
 }
 
 function render(
-  m: Matrix,
+  m: Matrix3,
   lab: { L: number; a: number; b: number },
   space: "srgb" | "p3",
 ): DisplayColor {

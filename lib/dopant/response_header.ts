@@ -4,6 +4,7 @@
  *
  * @module
  */
+import { HC_EV_NM, wavenumberToNm } from "../spectrum/axis.ts";
 import type { MetricOptions, ResponseMetric } from "./response_metric.ts";
 
 /** A response column's meaning, as its header states it. */
@@ -23,8 +24,8 @@ function positionNm(value: string, unit: string): number {
   const v = Number(value.replace(",", "."));
   const u = unit.toLowerCase();
   if (u === "nm") return v;
-  if (u.startsWith("cm")) return 1e7 / v;
-  return 1239.8419843320026 / v; // eV: λ = hc / E (CODATA 2018)
+  if (u.startsWith("cm")) return wavenumberToNm(v);
+  return HC_EV_NM / v; // eV: λ = hc / E (CODATA 2018)
 }
 
 /** Whether a header cell names a response column (of any metric). */

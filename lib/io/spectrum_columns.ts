@@ -6,7 +6,7 @@
  *
  * @module
  */
-import { type AxisUnit, HC_EV_NM } from "../spectrum/axis.ts";
+import { type AxisUnit, HC_EV_NM, nmToWavenumber } from "../spectrum/axis.ts";
 import type { Quantity, Spectrum } from "../spectrum/spectrum.ts";
 import type { OrdinateKind } from "./header_units.ts";
 
@@ -42,7 +42,7 @@ export function nmToAxis(nm: number, unit: AxisUnit): number {
     case "um":
       return nm / 1000;
     case "cm-1":
-      return 1e7 / nm;
+      return nmToWavenumber(nm);
     case "ev":
       return HC_EV_NM / nm;
   }

@@ -9,3 +9,4 @@ export * from "./student_t.ts";
 export * from "./savitzky_golay.ts";
 export * from "./variable_projection.ts";
 export * from "./round.ts";
+export * from "./matrix3.ts";
