@@ -10,7 +10,7 @@ describe("worker pool isolation (issue 16 item 2)", () => {
   it("a job past its time budget fails alone; its worker is replaced and the next job on the same one-worker pool succeeds", async () => {
     const base = await Deno.readTextFile(`${ROOT}test/fixtures/colour/cr_corundum_5nm.csv`);
     const settings = settingsForSample(resolveSettings({ ordinate: "transmittance" }), undefined);
-    const pool = new WorkerPool(1, { timeoutMs: 1500 });
+    const pool = new WorkerPool(1, { timeoutMs: 5000 });
     try {
       const enc = new TextEncoder();
       const started = Date.now();
@@ -20,11 +20,11 @@ describe("worker pool isolation (issue 16 item 2)", () => {
       const a = await slow;
       expect(a.ok).toBe(false);
       if (!a.ok) {
-        expect(a.error.message).toBe("wide.csv: analysis took longer than 1.5 s (stopped)");
+        expect(a.error.message).toBe("wide.csv: analysis took longer than 5 s (stopped)");
       }
-      expect(Date.now() - started).toBeLessThan(10000);
+      expect(Date.now() - started).toBeLessThan(20000);
       const b = await next;
-      expect(b.ok).toBe(true);
+      expect(b.ok ? "ok" : b.error.message).toBe("ok");
       if (b.ok) expect(JSON.parse(b.json).length).toBe(b.count);
       expect(pool.replaced).toBe(1);
     } finally {
