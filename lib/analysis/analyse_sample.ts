@@ -7,6 +7,7 @@
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { readSpectraFromBytes } from "../io/read_spectra.ts";
+import { InputError } from "../io/input_error.ts";
 import type { SampleSettings } from "./sample_settings.ts";
 import type { SampleResult } from "./sample_result.ts";
 import { colorRowsFor, pathTransmittance } from "./color_step.ts";
@@ -32,6 +33,8 @@ function hostName(s: SampleSettings): string | undefined {
  * @param file The file it came from (carried into the result).
  * @param given The sample's settings.
  * @param single Whether the file holds only this spectrum (then the sheet's name applies).
+ * @throws {InputError} When the spectrum cannot give a colour (outside 360–830 nm, or a
+ *   rescaling that needs a thickness nobody states).
  */
 export function analyseSample(
   measured: Spectrum,
@@ -44,9 +47,25 @@ export function analyseSample(
     ...(measured.meta.warnings ?? []),
   ];
   const { spectrum, settings: s, provenance } = provenanceStep(measured, given, warnings);
-  const { t, warnings: opticsWarnings } = pathTransmittance(spectrum, s);
-  warnings.push(...opticsWarnings);
-  const color = colorRowsFor(spectrum, t, s.illuminants, s.observers, s.pathMm);
+  let t: Float64Array, color;
+  try {
+    const optics = pathTransmittance(spectrum, s);
+    t = optics.t;
+    warnings.push(...optics.warnings);
+    color = colorRowsFor(spectrum, t, s.illuminants, s.observers, s.pathMm);
+  } catch (e) {
+    // a spectrum that cannot give a colour (outside the visible range, no thickness for a
+    // rescaling) is a problem of this input, reported as such
+    if (e instanceof RangeError) {
+      throw new InputError(
+        "out-of-range",
+        file,
+        undefined,
+        `${spectrum.meta.sample}: ${e.message}`,
+      );
+    }
+    throw e;
+  }
   const change = changeStep(spectrum, t, color, s);
   const series = seriesStep(spectrum, s, warnings);
   const target = targetStep(spectrum, t, color, s);

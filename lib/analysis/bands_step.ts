@@ -10,6 +10,8 @@ import { analyseBands, type BandAnalysis } from "../bands/analyse_bands.ts";
 import type { BandsResult } from "./sample_result.ts";
 import { thinBandCurve } from "./chart_curves.ts";
 
+const finiteOrNull = (v: number) => (Number.isFinite(v) ? v : null);
+
 /** The analysis (for the dopant step) and its results record, or nulls with a warning. */
 export function bandsStep(
   spectrum: Spectrum,
@@ -28,8 +30,8 @@ export function bandsStep(
     bands: fit.bands,
     baseline: fit.baseline,
     residualRms: fit.residualRms,
-    noiseSigma: fit.noiseSigma,
-    reducedChi2: fit.reducedChi2,
+    noiseSigma: finiteOrNull(fit.noiseSigma),
+    reducedChi2: finiteOrNull(fit.reducedChi2),
     converged: fit.converged,
     assignments: fit.assignments,
     excluded: fit.excluded,
@@ -37,6 +39,13 @@ export function bandsStep(
     held: fit.held,
     curve: thinBandCurve(fit.curve.cm1, fit.curve.data, fit.curve.model),
   };
+  if (result.noiseSigma === null) {
+    result.warnings = [
+      ...result.warnings,
+      "the noise could not be estimated from the data (too few or too coarsely rounded points): " +
+      "σ and χ² are not given",
+    ];
+  }
   if (fit.bandsAlpha) {
     result.bandsAlpha = fit.bandsAlpha;
     result.alphaBase = "natural";

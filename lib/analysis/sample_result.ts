@@ -93,10 +93,10 @@ export interface BandsResult {
   baseline: BandFit["baseline"];
   /** RMS residual of the fit. */
   residualRms: number;
-  /** Photometric noise σ of the ordinate, from the residual of a smooth fit. */
-  noiseSigma: number;
-  /** χ² per degree of freedom of the final fit. */
-  reducedChi2: number;
+  /** Photometric noise σ of the ordinate, from the residual of a smooth fit (null: unknown). */
+  noiseSigma: number | null;
+  /** χ² per degree of freedom of the final fit (null when the noise is unknown). */
+  reducedChi2: number | null;
   /** Whether the fit converged. */
   converged: boolean;
   /** Assignment hints (catalogue matches). */
