@@ -3,6 +3,7 @@
  *
  * @module
  */
+import { roundTo } from "../lib/numeric/round.ts";
 import { stringify } from "csv-stringify/sync";
 import { InputError } from "../lib/io/input_error.ts";
 import { csvHeader } from "../lib/analysis/csv_headers.ts";
@@ -83,9 +84,7 @@ export function withFlagHint(error: unknown): string {
 
 /** Rounds for display or CSV without losing what the measurement supports. */
 export function round(value: unknown, digits: number): unknown {
-  return typeof value === "number" && Number.isFinite(value)
-    ? Number(value.toFixed(digits))
-    : value;
+  return typeof value === "number" && Number.isFinite(value) ? roundTo(value, digits) : value;
 }
 
 /** A cell as CSV writes it: booleans `true`/`false`, missing values blank, objects as JSON. */
