@@ -11,6 +11,12 @@ import { deltaE2000 } from "../../lib/cie/delta_e.ts";
 import { coverageEllipse } from "../../lib/report/ellipse.ts";
 import { reportDetail } from "../../lib/report/report_data.ts";
 import type { SampleResult } from "../../lib/analysis/sample_result.ts";
+import {
+  parseManifest,
+  resolveSettings,
+  SettingsError,
+  settingsForSample,
+} from "../../lib/batch/mod.ts";
 
 const THICKNESS = 2, PATH = 6;
 
@@ -195,5 +201,65 @@ describe("uncertainties in a batch", () => {
     const html = await Deno.readTextFile(`${out}/index.html`);
     expect(html).not.toContain("Uncertainties: standard uncertainties");
     expect(html).not.toContain('stroke-dasharray="3 2"');
+  });
+});
+
+describe("uncertainty settings and sheet columns", () => {
+  it("defaults: noise estimated, other σ 0, levels 0.95 and 0.05; the sheet's sd columns reach the sample", () => {
+    const s = resolveSettings({ uncertainty: {} });
+    expect(s.uncertainty).toEqual({
+      offsetSd: 0,
+      wavelengthSdNm: 0,
+      thicknessSdMm: 0,
+      pathSdMm: 0,
+      passAt: 0.95,
+      failAt: 0.05,
+    });
+    expect(resolveSettings({}).uncertainty).toBeUndefined();
+    expect(resolveSettings({ uncertainty: { enabled: false } }).uncertainty).toBeUndefined();
+    const [row] = parseManifest('file,thickness_sd,path_sd (mm)\na.csv,"0,03",0.1\n', "s.csv");
+    const one = settingsForSample(
+      resolveSettings({ uncertainty: { thicknessSdMm: 0.5, offsetSd: "0,002", passAt: 0.9 } }),
+      row,
+    );
+    expect(one.uncertainty).toEqual({
+      sources: { offsetSd: 0.002, wavelengthSdNm: 0, thicknessSdMm: 0.03, pathSdMm: 0.1 },
+      passAt: 0.9,
+      failAt: 0.05,
+    });
+    expect("noiseSd" in one.uncertainty!.sources).toBe(false);
+    expect(settingsForSample(resolveSettings({}), row).uncertainty).toBeUndefined();
+  });
+
+  it("refuses negative σ, levels outside (0, 1) and failAt ≥ passAt, naming the setting", () => {
+    const bad: [unknown, RegExp][] = [
+      [{ thicknessSdMm: -0.01 }, /uncertainty\.thicknessSdMm/],
+      [{ noiseSd: -1 }, /uncertainty\.noiseSd/],
+      [{ wavelengthSdNm: "x" }, /uncertainty\.wavelengthSdNm/],
+      [{ passAt: 1 }, /uncertainty\.passAt/],
+      [{ failAt: 0 }, /uncertainty\.failAt/],
+      [{ passAt: 0.5, failAt: 0.6 }, /failAt must be below passAt/],
+      [{ passAt: 0.5, failAt: 0.5 }, /failAt must be below passAt/],
+      [{ failAt: 0.97 }, /failAt must be below passAt/],
+      [{ enabled: "yes" }, /uncertainty\.enabled/],
+    ];
+    for (const [u, message] of bad) {
+      expect(() => resolveSettings({ uncertainty: u })).toThrow(SettingsError);
+      expect(() => resolveSettings({ uncertainty: u })).toThrow(message);
+    }
+    expect(() => resolveSettings({ alphaBase: "2" })).toThrow(/alphaBase/);
+    expect(resolveSettings({ alphaBase: 10 }).alphaBase).toBe("10");
+    expect(resolveSettings({}).alphaBase).toBe("e");
+  });
+
+  it("sheet sd and alpha_base cells are checked with their line", () => {
+    expect(() => parseManifest("file,thickness_sd\na.csv,0.1\nb.csv,-0.1\n", "s.csv")).toThrow(
+      /s\.csv:3: thickness_sd must be a standard uncertainty/,
+    );
+    expect(() => parseManifest("file,path_sd\na.csv,abc\n", "s.csv")).toThrow(/s\.csv:2: path_sd/);
+    expect(() => parseManifest("file,alpha_base\na.csv,2\n", "s.csv")).toThrow(
+      /s\.csv:2: alpha_base must be e or 10/,
+    );
+    expect(parseManifest("file,alpha_base\na.csv,10\n", "s.csv")[0]!.alphaBase).toBe("10");
   });
 });
