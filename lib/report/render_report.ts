@@ -53,13 +53,16 @@ const UNCERTAINTY_METHOD =
   "Uncertainties: standard uncertainties (k = 1, shown as ± σ) by first-order propagation (GUM, JCGM 100:2008) of photometric noise, a zero/100 % level error correlated across wavelengths, a wavelength-scale shift and the thickness and path tolerances, through the linear weight route to L*a*b*; the a*b* charts draw the 95 % coverage ellipse of each light's (a*, b*) (JCGM 102:2011). The target verdict weighs the probability that the true colour lies within the tolerance.";
 
 /** Text of a value with its standard uncertainty, when there is one. */
-function pm(v: number, digits: number, sd: number | null | undefined): string {
+function pm(v: number, digits: number, sd: number | null | undefined, sdDigits = digits): string {
   const shown = v.toFixed(digits);
-  return typeof sd === "number" && Number.isFinite(sd) ? `${shown} ± ${sd.toFixed(digits)}` : shown;
+  return typeof sd === "number" && Number.isFinite(sd)
+    ? `${shown} ± ${sd.toFixed(sdDigits)}`
+    : shown;
 }
 
 function lch([L, C, h]: [number, number, number], sd?: [number, number, number] | null): string {
-  return `${pm(L, 1, sd?.[0])} · ${pm(C, 1, sd?.[1])} · ${pm(h, 0, sd?.[2])}°`;
+  // the hue's σ keeps a decimal: a whole-degree σ would often read "± 0"
+  return `${pm(L, 1, sd?.[0])} · ${pm(C, 1, sd?.[1])} · ${pm(h, 0, sd?.[2], 1)}°`;
 }
 
 /** Sort weight of a target cell: passes first, then undecided, then fails. */

@@ -233,10 +233,26 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
         })),
       ],
     }) + (ellipses.length
-      ? `<p class="legend">dashed: the 95 % coverage ellipse of (a*, b*) under each light</p>`
+      ? `<p class="legend">dashed: the 95 % coverage ellipse of (a*, b*) under each light; semi-axes ${
+        e(
+          ellipses.map((x) =>
+            `${x.light} ${semiAxes(x.points!)}`
+          ).join(", "),
+        )
+      }</p>`
       : ""),
   ));
   return `<div class="stone-charts">${out.join("")}</div>`;
+}
+
+/** The semi-axes of a closed ellipse's points, "major × minor" (half its widest and narrowest spans). */
+function semiAxes(points: [number, number][]): string {
+  const m = points.length - 1; // the last point closes the curve
+  const half = points.slice(0, m).map((p, i) => {
+    const q = points[(i + m / 2) % m] ?? p;
+    return Math.hypot(p[0] - q[0], p[1] - q[1]) / 2;
+  });
+  return `${n(Math.max(...half), 2)} × ${n(Math.min(...half), 2)}`;
 }
 
 function figure(caption: string, svg: string): string {

@@ -109,6 +109,11 @@ describe("stone page with uncertainties", () => {
     expect(pts.length).toBe(ellipse.length);
     expect(pts[0]).toBe(pts[pts.length - 1]);
     expect(ab).toContain("95 % coverage ellipse");
+    // semi-axes k·√λ of the covariance's eigenvalues, k² = −2 ln 0.05 (JCGM 102:2011 §6.5)
+    const k = Math.sqrt(-2 * Math.log(0.05));
+    const root = Math.hypot((0.09 - 0.04) / 2, 0.02);
+    const major = k * Math.sqrt(0.065 + root), minor = k * Math.sqrt(0.065 - root);
+    expect(ab).toContain(`semi-axes D65 ${major.toFixed(2)} × ${minor.toFixed(2)}</p>`);
     // without uncertainties: no ellipse and no legend for it
     const plain = renderStonePage(
       { ...row, lchFromSd: null, lchToSd: null, dE00Sd: null },
