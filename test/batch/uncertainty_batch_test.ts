@@ -152,6 +152,9 @@ describe("uncertainties in a batch", () => {
       }</td>`,
     );
     expect(html).toContain('<span class="undecided">undecided</span>');
+    expect(html).toContain(
+      "uncertainty: noise σ 0.003, level σ 0, wavelength σ 0 nm, thickness σ 0.02 mm, path σ 0.06 mm",
+    );
     expect(html).toMatch(/probability of passing \d+\.\d %/);
     expect(html.split("Verdict: conformance probability").length - 1).toBe(1);
     for (const [i, s] of [a, b, c].entries()) {
