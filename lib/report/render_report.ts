@@ -187,6 +187,10 @@ ${pageCss}</style>
 ${lotHeader(input, count, title)}
 <div class="meta">crystint ${e(input.version)} · ${settings}${
     targeted ? ` · target met by ${passed} of ${targeted}` : ""
+  }${
+    input.verdicts
+      ? ` (with uncertainty: ${input.verdicts.pass} pass, ${input.verdicts.undecided} undecided, ${input.verdicts.fail} fail)`
+      : ""
   }${input.errors.length ? ` · ${input.errors.length} file(s) not processed` : ""}</div>
 <main>
 <section class="card caution"><strong>Read with care.</strong> ${

@@ -121,6 +121,8 @@ export interface ReportInput {
    * at most the rows the page shows); default: counted from `rows`.
    */
   totals?: { samples: number; targeted: number; passed: number };
+  /** Counts of the guard-banded target verdicts over all samples, when uncertainties are on. */
+  verdicts?: { pass: number; undecided: number; fail: number };
   /** The decision rules of the verdicts and the uncertainty sources, each said once. */
   uncertaintyNotes?: string[];
 }

@@ -36,6 +36,7 @@ export class ReportInputBuilder {
   #passed = 0;
   #observers = new Set<string>();
   #uncertaintyNotes = new Set<string>();
+  #verdicts = { pass: 0, undecided: 0, fail: 0 };
 
   /** @param header The results header (settings summary, calibrations, limits). */
   constructor(header: ResultsHeader) {
@@ -55,6 +56,7 @@ export class ReportInputBuilder {
     for (const n of notes) {
       if (this.#uncertaintyNotes.size < NOTE_LIMIT) this.#uncertaintyNotes.add(n);
     }
+    if (result.target?.verdict) this.#verdicts[result.target.verdict]++;
     if (result.target) {
       this.#targeted++;
       if (result.target.pass) this.#passed++;
@@ -95,6 +97,7 @@ export class ReportInputBuilder {
       xyObserver,
       calibrations,
       ...(this.#uncertaintyNotes.size ? { uncertaintyNotes: [...this.#uncertaintyNotes] } : {}),
+      ...(Object.values(this.#verdicts).some((v) => v > 0) ? { verdicts: this.#verdicts } : {}),
     };
   }
 }

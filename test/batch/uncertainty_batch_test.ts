@@ -153,6 +153,9 @@ describe("uncertainties in a batch", () => {
     );
     expect(html).toContain('<span class="undecided">undecided</span>');
     expect(html).toContain(
+      "target met by 2 of 3 (with uncertainty: 1 pass, 1 undecided, 1 fail)",
+    );
+    expect(html).toContain(
       "uncertainty: noise σ 0.003, level σ 0, wavelength σ 0 nm, thickness σ 0.02 mm, path σ 0.06 mm",
     );
     expect(html).toMatch(/probability of passing \d+\.\d %/);
