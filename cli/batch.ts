@@ -47,6 +47,16 @@ export const SETTINGS_KEYS: [string, string][] = [
   ["changeMinChroma", "smallest C*ab for a change to be called marked (common practice)"],
   ["calibration", "calibration file applied to every sample"],
   ["calibrations", "named calibration files the sheet's calibration column may refer to"],
+  ["alphaBase", "e or 10: base of α inputs; 10 (decadic, A = α·d) is multiplied by ln 10"],
+  [
+    "uncertainty",
+    "{enabled (default true), noiseSd (default: estimated from the spectrum, and said so), " +
+    "offsetSd, wavelengthSdNm, thicknessSdMm, pathSdMm (σ ≥ 0, default 0), passAt (0.95), " +
+    "failAt (0.05)}: standard uncertainties (GUM first order) and target verdicts; the " +
+    "sheet's thickness_sd and path_sd columns override thicknessSdMm and pathSdMm",
+  ],
+  ["report", "{title, lab, client, operator, note, date, audience}: the report's header"],
+  ["limits", "{maxFileMb, fileTimeoutSeconds, maxMemoryMb}: per-file limits"],
 ];
 
 /** The command table of `crystint batch`. */
@@ -67,7 +77,7 @@ export const BATCH_COMMAND: CommandSpec = {
       type: "string",
       arg: "FILE",
       help: "sample sheet (CSV): sample, file, thickness_mm, path_mm, host, polarisation, " +
-        "target, calibration, notes; other columns are carried along",
+        "thickness_sd, path_sd, alpha_base, target, calibration, notes; other columns are carried along",
     },
     {
       name: "settings",
@@ -107,13 +117,8 @@ export const BATCH_COMMAND: CommandSpec = {
 /** The settings the run uses: the file's (or the defaults) with the reading options on top. */
 async function settingsFor(args: ParsedArgs): Promise<BatchSettings | undefined> {
   const ordinate = args.string("ordinate"), axis = args.string("axis");
-  if (alphaBaseFrom(args) === "10") {
-    throw new UsageError(
-      "batch reads α as natural-log based (T = exp(−α·d)) and cannot yet convert decadic α: " +
-        "convert the files with another crystint command or give --alpha-base e",
-    );
-  }
-  if (ordinate === undefined && axis === undefined) return undefined;
+  const alphaBase = args.string("alpha-base") === undefined ? undefined : alphaBaseFrom(args);
+  if (ordinate === undefined && axis === undefined && alphaBase === undefined) return undefined;
   // the same checks as every other command
   ordinateFrom(args);
   axisFrom(args);
@@ -121,6 +126,7 @@ async function settingsFor(args: ParsedArgs): Promise<BatchSettings | undefined>
   const settings = path ? await readSettingsFile(path) : defaultSettings();
   if (ordinate !== undefined) settings.ordinate = ordinate;
   if (axis !== undefined) settings.axis = axis;
+  if (alphaBase !== undefined) settings.alphaBase = alphaBase;
   return settings;
 }
 

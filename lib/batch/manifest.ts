@@ -15,6 +15,12 @@ export interface ManifestRow {
   file?: string;
   thicknessMm?: number;
   pathMm?: number;
+  /** Thickness tolerance (standard uncertainty), mm. */
+  thicknessSdMm?: number;
+  /** Path tolerance (standard uncertainty), mm. */
+  pathSdMm?: number;
+  /** Base of α values in the file: e (natural) or 10 (decadic). */
+  alphaBase?: "e" | "10";
   host?: string;
   polarisation?: string;
   target?: string;
@@ -39,6 +45,11 @@ const ALIASES: Record<string, keyof Omit<ManifestRow, "line" | "extra">> = {
   path_mm: "pathMm",
   path: "pathMm",
   stone_path_mm: "pathMm",
+  thickness_sd: "thicknessSdMm",
+  thickness_sd_mm: "thicknessSdMm",
+  path_sd: "pathSdMm",
+  path_sd_mm: "pathSdMm",
+  alpha_base: "alphaBase",
   depth_mm: "pathMm",
   host: "host",
   polarisation: "polarisation",
@@ -89,6 +100,22 @@ export function parseManifest(text: string, file: string): ManifestRow[] {
           );
         }
         row[field] = n;
+      } else if (field === "thicknessSdMm" || field === "pathSdMm") {
+        const n = Number(value.replace(",", "."));
+        if (!(Number.isFinite(n) && n >= 0)) {
+          throw new SettingsError(
+            `${file}:${i + 2}: ${
+              header[c]
+            } must be a standard uncertainty in mm (0 or more), got "${value}"`,
+          );
+        }
+        row[field] = n;
+      } else if (field === "alphaBase") {
+        const base = value.trim().toLowerCase();
+        if (base !== "e" && base !== "10") {
+          throw new SettingsError(`${file}:${i + 2}: ${header[c]} must be e or 10, got "${value}"`);
+        }
+        row[field] = base;
       } else {
         row[field] = value;
       }

@@ -7,6 +7,7 @@ import type { ReadOptions } from "../io/read_spectra.ts";
 import { axisFromText, ordinateFromText } from "../io/header_units.ts";
 import type { ReflectionSettings } from "../optics/path_transmittance.ts";
 import { parseSellmeier } from "../optics/refractive_index.ts";
+import type { UncertaintySources } from "../cie/color_uncertainty.ts";
 import type { Calibration } from "../dopant/linear_calibration.ts";
 import type { SampleSettings, SheetValues } from "../analysis/sample_settings.ts";
 import type { BatchSettings } from "./settings_schema.ts";
@@ -27,6 +28,8 @@ export function settingsForSample(
   const axis = settings.axis ? axisFromText(settings.axis) : undefined;
   if (ordinate) read.ordinate = ordinate;
   if (axis) read.axis = axis;
+  const alphaBase = row?.alphaBase ?? settings.alphaBase;
+  if (alphaBase === "10") read.alphaBase = "10";
   const reflection: ReflectionSettings = { reflection: settings.reflection };
   if (settings.host !== undefined) reflection.host = settings.host;
   if (settings.n !== undefined) reflection.n = settings.n;
@@ -67,6 +70,17 @@ export function settingsForSample(
       );
     }
     out.calibration = { ...cal, name: calName };
+  }
+  const u = settings.uncertainty;
+  if (u) {
+    const sources: UncertaintySources = {
+      offsetSd: u.offsetSd,
+      wavelengthSdNm: u.wavelengthSdNm,
+      thicknessSdMm: row?.thicknessSdMm ?? u.thicknessSdMm,
+      pathSdMm: row?.pathSdMm ?? u.pathSdMm,
+    };
+    if (u.noiseSd !== undefined) sources.noiseSd = u.noiseSd;
+    out.uncertainty = { sources, passAt: u.passAt, failAt: u.failAt };
   }
   if (row?.notes) out.notes = row.notes;
   if (row?.sample) out.sampleName = row.sample;

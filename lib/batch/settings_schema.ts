@@ -52,6 +52,28 @@ export interface BatchSettings {
   report?: Partial<ReportHeader>;
   /** Per-file limits of a batch (see batch_limits.ts for the defaults). */
   limits?: { maxFileMb?: number; fileTimeoutSeconds?: number; maxMemoryMb?: number };
+  /** Base of α inputs: `10` (decadic, A = α·d) values are multiplied by ln 10 on read. */
+  alphaBase: "e" | "10";
+  /** Uncertainty sources and verdict levels; omitted or `enabled: false`: none computed. */
+  uncertainty?: BatchUncertainty;
+}
+
+/** The `uncertainty:` block (GUM, JCGM 100:2008 sources; guard bands as ISO 14253-1). */
+export interface BatchUncertainty {
+  /** Photometric noise per point in the file's ordinate; omitted: estimated from the spectrum. */
+  noiseSd?: number;
+  /** Zero/100 % level error, fully correlated across wavelengths, same unit. */
+  offsetSd: number;
+  /** Wavelength-scale error (a shift), nm. */
+  wavelengthSdNm: number;
+  /** Thickness tolerance, mm (the sheet's `thickness_sd` overrides it). */
+  thicknessSdMm: number;
+  /** Path tolerance, mm (the sheet's `path_sd` overrides it). */
+  pathSdMm: number;
+  /** Smallest pass probability that is a pass. */
+  passAt: number;
+  /** Largest pass probability that is a fail. */
+  failAt: number;
 }
 
 /** A problem with the settings file (a usage error, exit code 1). */
@@ -74,6 +96,7 @@ export function defaultSettings(): BatchSettings {
     series: { fromMm: 0.5, toMm: 12, steps: 24 },
     changeHueThresholdDeg: 20,
     changeMinChroma: 5,
+    alphaBase: "e",
   };
 }
 
@@ -198,6 +221,28 @@ function reportSettings(v: unknown): Partial<ReportHeader> {
   return out;
 }
 
+/** The `uncertainty:` block (bounds checked by settings_shape.ts); null when disabled. */
+function uncertaintySettings(v: unknown): BatchUncertainty | null {
+  const o = (v ?? {}) as Record<string, unknown>;
+  if (o.enabled === false) return null;
+  const sd = (k: string) => o[k] === undefined ? 0 : num(o[k], `uncertainty.${k}`);
+  const u: BatchUncertainty = {
+    offsetSd: sd("offsetSd"),
+    wavelengthSdNm: sd("wavelengthSdNm"),
+    thicknessSdMm: sd("thicknessSdMm"),
+    pathSdMm: sd("pathSdMm"),
+    passAt: o.passAt === undefined ? 0.95 : num(o.passAt, "uncertainty.passAt"),
+    failAt: o.failAt === undefined ? 0.05 : num(o.failAt, "uncertainty.failAt"),
+  };
+  if (o.noiseSd !== undefined) u.noiseSd = num(o.noiseSd, "uncertainty.noiseSd");
+  if (!(0 < u.failAt && u.failAt < u.passAt && u.passAt < 1)) {
+    throw new SettingsError(
+      `Setting uncertainty: need 0 < failAt < passAt < 1, got failAt ${u.failAt}, passAt ${u.passAt}`,
+    );
+  }
+  return u;
+}
+
 /**
  * Validates a settings object (from JSON or YAML) on top of the defaults.
  *
@@ -313,6 +358,15 @@ export function resolveSettings(
     if (l.maxMemoryMb !== undefined) {
       s.limits.maxMemoryMb = num(l.maxMemoryMb, "limits.maxMemoryMb");
     }
+  }
+  if (o.alphaBase !== undefined) {
+    const base = String(o.alphaBase).trim().toLowerCase();
+    if (base !== "e" && base !== "10") throw new SettingsError("Setting alphaBase must be e or 10");
+    s.alphaBase = base;
+  }
+  if (o.uncertainty !== undefined) {
+    const u = uncertaintySettings(o.uncertainty);
+    if (u) s.uncertainty = u;
   }
   if (o.changeHueThresholdDeg !== undefined) {
     s.changeHueThresholdDeg = num(o.changeHueThresholdDeg, "changeHueThresholdDeg", true);

@@ -23,6 +23,8 @@ const nameList = z.union([z.string().max(1000), z.array(z.union([name, z.number(
 const path = z.string().min(1).max(4096);
 const mm = numeric(z.number().gt(0).lte(10000));
 const labValue = numeric(z.number().gte(-1000).lte(1000));
+const sd = numeric(z.number().gte(0, { error: "must be a standard uncertainty, 0 or more" }));
+const probability = numeric(z.number().gt(0).lt(1));
 const lab = z.union([
   z.array(labValue).length(3),
   z.strictObject({ L: labValue, a: labValue, b: labValue }),
@@ -77,6 +79,20 @@ export const settingsShape = z.strictObject({
     fileTimeoutSeconds: numeric(z.number().gt(0).lte(86400)).optional(),
     maxMemoryMb: numeric(z.number().gte(256).lte(1048576)).optional(),
   }).optional(),
+  alphaBase: z.union([z.enum(["e", "10"]), z.literal(10)]).optional(),
+  uncertainty: z.strictObject({
+    enabled: z.boolean().optional(),
+    noiseSd: sd.optional(),
+    offsetSd: sd.optional(),
+    wavelengthSdNm: sd.optional(),
+    thicknessSdMm: sd.optional(),
+    pathSdMm: sd.optional(),
+    passAt: probability.optional(),
+    failAt: probability.optional(),
+  }).refine((u) => {
+    const pass = Number(u.passAt ?? 0.95), fail = Number(u.failAt ?? 0.05);
+    return fail < pass;
+  }, { error: "failAt must be below passAt (0 < failAt < passAt < 1)" }).optional(),
   /** The report block is validated by the report's own settings. */
   report: z.unknown().optional(),
 });

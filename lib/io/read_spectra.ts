@@ -52,7 +52,15 @@ export function readSpectraFromText(
   options: ReadOptions = {},
 ): Spectrum[] {
   const limits = resolveReadLimits(options.limits);
-  if (/^\s*##TITLE\s*=/im.test(text.slice(0, 2000))) return readJcamp(text, file, options);
+  if (/^\s*##TITLE\s*=/im.test(text.slice(0, 2000))) {
+    const spectra = readJcamp(text, file, options);
+    // decadic α (A = α·d) into the natural α of the model: α = α₁₀ · ln 10
+    return options.alphaBase === "10"
+      ? spectra.map((s) =>
+        s.quantity === "alpha" ? { ...s, values: s.values.map((v) => v * Math.LN10) } : s
+      )
+      : spectra;
+  }
   const tableOptions: TableReadOptions = { limits };
   if (options.tableReader) tableOptions.tableReader = options.tableReader;
   return spectraFromTable(readTextTable(text, file, tableOptions), file, options);

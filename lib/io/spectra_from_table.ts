@@ -36,6 +36,11 @@ export interface ReadOptions {
   axis?: AxisUnit;
   /** Thickness of the measured slab in mm (overrides the file's metadata). */
   thicknessMm?: number;
+  /**
+   * Base of α values: `10` (decadic, A = α·d) is multiplied by ln 10 into the natural α of the
+   * model (T = exp(−α·d)); a header that names its base outranks it. @default "e"
+   */
+  alphaBase?: "e" | "10";
   /** Caps on the file (defaults in `read_limits.ts`). */
   limits?: Partial<ReadLimits>;
   /** `general` reads every table line cell by cell, for checking the fast path against it. */
@@ -288,7 +293,10 @@ export function spectraFromTable(
     }
     const { quantity, scale: unitScale } = toQuantity(kind);
     // a decadic α (α₁₀ = A/d) is held as the napierian α of the model: α = α₁₀ · ln 10
-    const decadic = quantity === "alpha" && /decadic|alpha\s*10|α\s*10/i.test(header?.[c] ?? "");
+    const said = header?.[c] ?? "";
+    const decadic = quantity === "alpha" &&
+      (/decadic|alpha\s*10|α\s*10/i.test(said) ||
+        (options.alphaBase === "10" && !/natural|napierian|\bln\b/i.test(said)));
     const scale = decadic ? unitScale * Math.LN10 : unitScale;
     let clipped = 0;
     const bounded = quantity === "transmittance" || quantity === "reflectance";

@@ -48,15 +48,42 @@ export function cssString(text: string): string {
   }"`;
 }
 
-function lch([L, C, h]: [number, number, number]): string {
-  return `${L.toFixed(1)} · ${C.toFixed(1)} · ${h.toFixed(0)}°`;
+/** The uncertainty method, said when any sample carries uncertainties. */
+const UNCERTAINTY_METHOD =
+  "Uncertainties: standard uncertainties (k = 1, shown as ± σ) by first-order propagation (GUM, JCGM 100:2008) of photometric noise, a zero/100 % level error correlated across wavelengths, a wavelength-scale shift and the thickness and path tolerances, through the linear weight route to L*a*b*; the a*b* charts draw the 95 % coverage ellipse of each light's (a*, b*) (JCGM 102:2011). The target verdict weighs the probability that the true colour lies within the tolerance.";
+
+/** Text of a value with its standard uncertainty, when there is one. */
+function pm(v: number, digits: number, sd: number | null | undefined, sdDigits = digits): string {
+  const shown = v.toFixed(digits);
+  return typeof sd === "number" && Number.isFinite(sd)
+    ? `${shown} ± ${sd.toFixed(sdDigits)}`
+    : shown;
+}
+
+function lch([L, C, h]: [number, number, number], sd?: [number, number, number] | null): string {
+  // the hue's σ keeps a decimal: a whole-degree σ would often read "± 0"
+  return `${pm(L, 1, sd?.[0])} · ${pm(C, 1, sd?.[1])} · ${pm(h, 0, sd?.[2], 1)}°`;
+}
+
+/** Sort weight of a target cell: passes first, then undecided, then fails. */
+function targetWeight(t: NonNullable<ReportRow["target"]>): number {
+  const verdict = t.verdict ?? (t.pass ? "pass" : "fail");
+  return (verdict === "pass" ? 0 : verdict === "undecided" ? 500 : 1000) + t.dE00;
+}
+
+/** The tooltip of a target cell: what was missed, and the pass probability. */
+export function targetTitle(t: NonNullable<ReportRow["target"]>): string {
+  return t.passProbability === undefined
+    ? t.words
+    : `${t.words}; probability of passing ${(100 * t.passProbability).toFixed(1)} %`;
 }
 
 function row(r: ReportRow, hasDetail: boolean): string {
-  const target = r.target
-    ? `<span class="${r.target.pass ? "pass" : "fail"}">${r.target.pass ? "pass" : "fail"}</span> ${
-      r.target.dE00.toFixed(2)
-    }`
+  const t = r.target;
+  const target = t
+    ? `<span class="${t.pass ? "pass" : "fail"}">${t.pass ? "pass" : "fail"}</span> ${
+      t.dE00.toFixed(2)
+    }${t.verdict ? ` · <span class="${t.verdict}">${t.verdict}</span>` : ""}`
     : "—";
   return `<tr data-index="${r.index}">
 <td data-value="${e(r.sample)}">${e(r.sample)}${
@@ -70,17 +97,15 @@ function row(r: ReportRow, hasDetail: boolean): string {
     e(r.to)
   }"></span></span></td>
 <td class="num" data-value="${r.pathMm ?? ""}">${r.pathMm === null ? "—" : r.pathMm.toFixed(1)}</td>
-<td class="num day" data-value="${r.lchFrom[0]}">${lch(r.lchFrom)}</td>
-<td class="num lamp" data-value="${r.lchTo[0]}">${lch(r.lchTo)}</td>
-<td class="num" data-value="${r.dE00}">${r.dE00.toFixed(2)}</td>
+<td class="num day" data-value="${r.lchFrom[0]}">${lch(r.lchFrom, r.lchFromSd)}</td>
+<td class="num lamp" data-value="${r.lchTo[0]}">${lch(r.lchTo, r.lchToSd)}</td>
+<td class="num" data-value="${r.dE00}">${pm(r.dE00, 2, r.dE00Sd)}</td>
 <td class="num" data-value="${r.dh}">${r.dh.toFixed(1)}°${
     r.marked
       ? ` <span class="tag" title="${e(MARKS.marked.text)}">${MARKS.marked.symbol}</span>`
       : ""
   }</td>
-<td data-value="${r.target ? (r.target.pass ? 0 : 1000) + r.target.dE00 : ""}" title="${
-    e(r.target?.words ?? "")
-  }">${target}</td>
+<td data-value="${t ? targetWeight(t) : ""}" title="${e(t ? targetTitle(t) : "")}">${target}</td>
 <td data-value="${r.dopant ? parseFloat(r.dopant) : ""}">${e(r.dopant ?? "—")}</td>
 <td>${hasDetail ? `<button class="detail" data-index="${r.index}">details</button>` : ""}</td>
 </tr>`;
@@ -127,6 +152,7 @@ export function renderReport(input: ReportInput, chartJs: string): string {
   const calibrations = input.calibrations ?? [];
   const title = input.report?.title || "Colour report";
   const client = input.report?.audience === "client";
+  const uncertain = (input.uncertaintyNotes?.length ?? 0) > 0;
   const data = {
     rows: input.rows.slice(0, ROW_LIMIT),
     details: input.details,
@@ -161,6 +187,10 @@ ${pageCss}</style>
 ${lotHeader(input, count, title)}
 <div class="meta">crystint ${e(input.version)} · ${settings}${
     targeted ? ` · target met by ${passed} of ${targeted}` : ""
+  }${
+    input.verdicts
+      ? ` (with uncertainty: ${input.verdicts.pass} pass, ${input.verdicts.undecided} undecided, ${input.verdicts.fail} fail)`
+      : ""
   }${input.errors.length ? ` · ${input.errors.length} file(s) not processed` : ""}</div>
 <main>
 <section class="card caution"><strong>Read with care.</strong> ${
@@ -183,7 +213,9 @@ ${lotHeader(input, count, title)}
   })</th><th data-key="to" class="lamp">L* · C* · h (${e(to)})</th>
 <th data-key="dE00">ΔE00 ${e(from)}→${
     e(to)
-  }</th><th data-key="dh">Δh</th><th data-key="target" title="sorts passes first, then by ΔE00">target (pass/fail, ΔE00)</th>
+  }</th><th data-key="dh">Δh</th><th data-key="target" title="sorts passes first, then by ΔE00">target (pass/fail, ΔE00${
+    uncertain ? ", verdict" : ""
+  })</th>
 <th data-key="dopant">dopant</th><th class="noprint"></th>
 </tr></thead>
 <tbody>
@@ -195,7 +227,11 @@ ${input.rows.slice(0, ROW_LIMIT).map((r) => row(r, r.index in input.details)).jo
     e(obs)
   }° observer in the change columns. <span class="mark">${MARKS.outOfGamut.symbol}</span> ${
     e(MARKS.outOfGamut.text)
-  }. <span class="tag">${MARKS.marked.symbol}</span> ${e(MARKS.marked.text)}.</p>
+  }. <span class="tag">${MARKS.marked.symbol}</span> ${e(MARKS.marked.text)}.${
+    uncertain
+      ? " ± is one standard uncertainty (k = 1); the target verdict (pass, fail or undecided) follows the rule under Methods, its probability of passing in the cell's tooltip."
+      : ""
+  }</p>
 ${
     count > ROW_LIMIT
       ? `<p>The table shows the first ${ROW_LIMIT} of ${count} samples; results.csv and results.json hold all of them.</p>`
@@ -277,7 +313,11 @@ ${
   }
 
 <h2>Methods and sources</h2>
-<div class="card methods"><ul>${METHODS.map((m) => `<li>${e(m)}</li>`).join("")}</ul></div>
+<div class="card methods"><ul>${
+    [...METHODS, ...(uncertain ? [UNCERTAINTY_METHOD, ...input.uncertaintyNotes!] : [])].map((m) =>
+      `<li>${e(m)}</li>`
+    ).join("")
+  }</ul></div>
 </main>
 </section>
 <section class="stones" aria-label="one page per stone">

@@ -8,6 +8,7 @@ import type { SampleResult } from "../analysis/sample_result.ts";
 import type { CalibrationSummary, ReportHeader } from "../analysis/results_document.ts";
 import { roundTo } from "../numeric/round.ts";
 import { spectralLocus } from "../cie/dominant_wavelength.ts";
+import { coverageEllipse } from "./ellipse.ts";
 
 /** One line of the summary table. */
 export interface ReportRow {
@@ -23,9 +24,21 @@ export interface ReportRow {
   swatchFrom: string;
   swatchTo: string;
   dE00: number;
+  /** Standard uncertainties (k = 1) of L*, C*, h under each light and of ΔE00; null when off. */
+  lchFromSd?: [number, number, number] | null;
+  lchToSd?: [number, number, number] | null;
+  dE00Sd?: number | null;
   dh: number;
   marked: boolean;
-  target: { name: string; pass: boolean; dE00: number; words: string } | null;
+  target: {
+    name: string;
+    pass: boolean;
+    dE00: number;
+    words: string;
+    /** Guard-banded verdict and pass probability, when uncertainties are on. */
+    verdict?: "pass" | "fail" | "undecided";
+    passProbability?: number;
+  } | null;
   dopant: string | null;
   warnings: string[];
   notes: string;
@@ -43,6 +56,8 @@ export interface ReportDetail {
     model: number[];
     residual: number[];
     ordinate: string;
+    /** Stretches left out of the fit. */
+    excluded?: { fromNm: number; toNm: number; reason: string }[];
     table: {
       centerNm: number;
       centerNmSigma: number;
@@ -58,6 +73,9 @@ export interface ReportDetail {
   xy: { illuminant: string; observer: string; x: number; y: number; wx: number; wy: number }[];
   abFrom: [number, number];
   abTo: [number, number];
+  /** 95 % coverage ellipses of (a*, b*) under the two lights, when uncertainties are on. */
+  ellipseFrom?: [number, number][] | null;
+  ellipseTo?: [number, number][] | null;
   color: {
     illuminant: string;
     observer: string;
@@ -71,6 +89,8 @@ export interface ReportDetail {
     dominantNm: number | null;
     complementary: boolean;
     purity: number | null;
+    /** Standard uncertainties (k = 1), when uncertainties are on. */
+    sd?: { L: number; C: number; h: number | null; a: number; b: number } | null;
   }[];
   extra: Record<string, string>;
   thicknessMm: number | null;
@@ -101,6 +121,10 @@ export interface ReportInput {
    * at most the rows the page shows); default: counted from `rows`.
    */
   totals?: { samples: number; targeted: number; passed: number };
+  /** Counts of the guard-banded target verdicts over all samples, when uncertainties are on. */
+  verdicts?: { pass: number; undecided: number; fail: number };
+  /** The decision rules of the verdicts and the uncertainty sources, each said once. */
+  uncertaintyNotes?: string[];
 }
 
 /** A calibration line for the report's calibration plot. */
@@ -114,9 +138,29 @@ const r = (v: number | null, d = 2): number => (typeof v === "number" ? roundTo(
 const precision = (v: number | null, digits: number) =>
   typeof v === "number" && Number.isFinite(v) ? v.toPrecision(digits) : "?";
 
+/** The uncertainty row of a light under the change's observer. */
+function sdRow(result: SampleResult, illuminant: string) {
+  return result.uncertainty?.rows.find((u) =>
+    u.illuminant === illuminant && u.observer === result.change.observer
+  );
+}
+
+const lchSd = (u: ReturnType<typeof sdRow>): [number, number, number] | null =>
+  u ? [r(u.LSd), r(u.CSd), r(u.hSd, 1)] : null;
+
+/** The 95 % ellipse of (a*, b*) from the a*, b* block of a row's covariance. */
+function abEllipse(u: ReturnType<typeof sdRow>, lab: { a: number; b: number }) {
+  if (!u) return null;
+  const m = u.labCovariance;
+  return coverageEllipse([lab.a, lab.b], [[m[1]![1]!, m[1]![2]!], [m[2]![1]!, m[2]![2]!]], 0.95)
+    .map(([a, b]) => [r(a), r(b)] as [number, number]);
+}
+
 /** The summary row of a sample result. */
 export function reportRow(result: SampleResult, index: number): ReportRow {
   const c = result.change;
+  const un = result.uncertainty;
+  const t = result.target;
   return {
     index,
     sample: result.sample,
@@ -130,14 +174,23 @@ export function reportRow(result: SampleResult, index: number): ReportRow {
     swatchFrom: c.swatchFrom,
     swatchTo: c.swatchTo,
     dE00: r(c.dE00),
+    ...(un
+      ? {
+        lchFromSd: lchSd(sdRow(result, c.from)),
+        lchToSd: lchSd(sdRow(result, c.to)),
+        dE00Sd: un.changeDE00Sd === null ? null : r(un.changeDE00Sd),
+      }
+      : {}),
     dh: r(c.dh, 1),
     marked: c.marked,
-    target: result.target
+    target: t
       ? {
-        name: result.target.name,
-        pass: result.target.pass,
-        dE00: r(result.target.dE00),
-        words: result.target.words,
+        name: t.name,
+        pass: t.pass,
+        dE00: r(t.dE00),
+        words: t.words,
+        ...(t.verdict ? { verdict: t.verdict } : {}),
+        ...(t.passProbability === undefined ? {} : { passProbability: r(t.passProbability, 3) }),
       }
       : null,
     dopant: result.dopant
@@ -154,6 +207,7 @@ export function reportRow(result: SampleResult, index: number): ReportRow {
 /** The chart data of a sample result. */
 export function reportDetail(result: SampleResult): ReportDetail {
   const c = result.change;
+  const un = result.uncertainty;
   return {
     sample: result.sample,
     file: fileLabel(result.file),
@@ -165,6 +219,11 @@ export function reportDetail(result: SampleResult): ReportDetail {
         residual: result.bands.curve.data.map((v, i) => r(v - result.bands!.curve.model[i]!, 5)),
         data: result.bands.curve.data,
         ordinate: result.bands.ordinate,
+        excluded: result.bands.excluded.map((x) => ({
+          fromNm: r(x.fromNm, 1),
+          toNm: r(x.toNm, 1),
+          reason: x.reason,
+        })),
         table: result.bands.bands.map((b, i) => ({
           centerNm: r(b.centerNm, 1),
           centerNmSigma: r(b.centerNmSigma, 1),
@@ -198,6 +257,12 @@ export function reportDetail(result: SampleResult): ReportDetail {
     }),
     abFrom: [r(c.labFrom.a), r(c.labFrom.b)],
     abTo: [r(c.labTo.a), r(c.labTo.b)],
+    ...(un
+      ? {
+        ellipseFrom: abEllipse(sdRow(result, c.from), c.labFrom),
+        ellipseTo: abEllipse(sdRow(result, c.to), c.labTo),
+      }
+      : {}),
     color: result.color.map((row) => ({
       illuminant: row.illuminant,
       observer: row.observer,
@@ -211,12 +276,28 @@ export function reportDetail(result: SampleResult): ReportDetail {
       dominantNm: row.dominantNm === null ? null : r(row.dominantNm, 1),
       complementary: row.complementary,
       purity: row.purity === null ? null : r(row.purity, 3),
+      ...(un ? { sd: colorSd(result, row.illuminant, row.observer) } : {}),
     })),
     extra: result.extra,
     thicknessMm: result.thicknessMm,
     polarisation: result.polarisation,
     host: result.host,
   };
+}
+
+function colorSd(result: SampleResult, illuminant: string, observer: string) {
+  const u = result.uncertainty?.rows.find((x) =>
+    x.illuminant === illuminant && x.observer === observer
+  );
+  return u
+    ? {
+      L: r(u.LSd),
+      C: r(u.CSd),
+      h: u.hSd === null ? null : r(u.hSd, 1),
+      a: r(u.aSd),
+      b: r(u.bSd),
+    }
+    : null;
 }
 
 /**

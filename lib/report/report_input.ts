@@ -22,6 +22,9 @@ import { renderReport, ROW_LIMIT } from "./render_report.ts";
 /** Most samples placed on one calibration plot. */
 const PLACED_LIMIT = 5000;
 
+/** Most distinct uncertainty notes and rules the methods list (each said once). */
+const NOTE_LIMIT = 12;
+
 /** Collects what the page shows, keeping only the rows and details the page embeds. */
 export class ReportInputBuilder {
   readonly #header: ResultsHeader;
@@ -32,6 +35,8 @@ export class ReportInputBuilder {
   #targeted = 0;
   #passed = 0;
   #observers = new Set<string>();
+  #uncertaintyNotes = new Set<string>();
+  #verdicts = { pass: 0, undecided: 0, fail: 0 };
 
   /** @param header The results header (settings summary, calibrations, limits). */
   constructor(header: ResultsHeader) {
@@ -44,6 +49,14 @@ export class ReportInputBuilder {
     for (const row of result.color) this.#observers.add(row.observer);
     if (index < ROW_LIMIT) this.#rows.push(reportRow(result, index));
     if (index < this.#header.detailLimit) this.#details[index] = reportDetail(result);
+    const notes = [
+      ...(result.target?.rule ? [`Verdict: ${result.target.rule}.`] : []),
+      ...(result.uncertainty?.notes ?? []).map((n) => `Uncertainty: ${n}.`),
+    ];
+    for (const n of notes) {
+      if (this.#uncertaintyNotes.size < NOTE_LIMIT) this.#uncertaintyNotes.add(n);
+    }
+    if (result.target?.verdict) this.#verdicts[result.target.verdict]++;
     if (result.target) {
       this.#targeted++;
       if (result.target.pass) this.#passed++;
@@ -83,6 +96,8 @@ export class ReportInputBuilder {
       loci: { [xyObserver]: locusForReport(xyObserver) },
       xyObserver,
       calibrations,
+      ...(this.#uncertaintyNotes.size ? { uncertaintyNotes: [...this.#uncertaintyNotes] } : {}),
+      ...(Object.values(this.#verdicts).some((v) => v > 0) ? { verdicts: this.#verdicts } : {}),
     };
   }
 }

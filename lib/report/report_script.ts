@@ -79,13 +79,22 @@ export const REPORT_SCRIPT = `
     return Math.ceil(lim / 10) * 10;
   }
   // pairs: [a1, b1, a2, b2, name]; lot: draw arrows only for highlighted pairs, the rest as faint points
-  function abChart(canvas, pairs, from, to, lot) {
+  // ellipses: [{ points: [[a, b], …], color }] drawn as dashed lines (95 % coverage regions)
+  function abChart(canvas, pairs, from, to, lot, ellipses) {
     var lim = limitFor(pairs), faint = lot ? "55" : "";
+    (ellipses || []).forEach(function (el) {
+      el.points.forEach(function (p) { lim = Math.max(lim, Math.ceil(Math.abs(p[0]) / 10) * 10, Math.ceil(Math.abs(p[1]) / 10) * 10); });
+    });
+    var sets = [
+      { label: "under " + from, data: pairs.map(function (p) { return { x: p[0], y: p[1], name: p[4] }; }), backgroundColor: DAY + faint, pointRadius: lot ? 3 : 3.5 },
+      { label: "under " + to, data: pairs.map(function (p) { return { x: p[2], y: p[3], name: p[4] }; }), backgroundColor: LAMP + faint, pointRadius: lot ? 3 : 3.5 }
+    ];
+    (ellipses || []).forEach(function (el) {
+      sets.push({ label: el.label, data: el.points.map(function (p) { return { x: p[0], y: p[1] }; }),
+        showLine: true, pointRadius: 0, borderColor: el.color, borderWidth: 1, borderDash: [3, 2] });
+    });
     var chart = new Chart(canvas, { type: "scatter",
-      data: { datasets: [
-        { label: "under " + from, data: pairs.map(function (p) { return { x: p[0], y: p[1], name: p[4] }; }), backgroundColor: DAY + faint, pointRadius: lot ? 3 : 3.5 },
-        { label: "under " + to, data: pairs.map(function (p) { return { x: p[2], y: p[3], name: p[4] }; }), backgroundColor: LAMP + faint, pointRadius: lot ? 3 : 3.5 }
-      ] },
+      data: { datasets: sets },
       options: { scales: { x: { min: -lim, max: lim, title: { display: true, text: "a*" }, grid: { color: RULE } },
         y: { min: -lim, max: lim, title: { display: true, text: "b*" }, grid: { color: RULE } } },
         onHover: lot ? function (ev, els) { setHover(els.length ? els[0].index : null); } : undefined,
@@ -209,12 +218,16 @@ export const REPORT_SCRIPT = `
     fact("measured thickness", d.thicknessMm === null ? "not given" : d.thicknessMm + " mm");
     if (d.polarisation) fact("polarisation", d.polarisation);
     if (d.host) fact("host", d.host);
+    function pm(v, sd) { return sd === null || sd === undefined ? String(v) : v + " ± " + sd; }
     d.color.forEach(function (c) {
-      fact(c.illuminant + " / " + c.observer + "°", "L* " + c.L + "  C* " + c.C + "  h " + c.h + "°" +
+      var u = c.sd || {};
+      fact(c.illuminant + " / " + c.observer + "°", "L* " + pm(c.L, u.L) + "  C* " + pm(c.C, u.C) + "  h " + pm(c.h, u.h) + "°" +
         (c.dominantNm === null ? "" : "  λ" + (c.complementary ? "c " : "d ") + c.dominantNm + " nm, pe " + c.purity));
     });
-    fact("change " + row.from + " → " + row.to, "ΔE00 " + row.dE00 + ", Δh " + row.dh + "°");
+    fact("change " + row.from + " → " + row.to, "ΔE00 " + pm(row.dE00, row.dE00Sd) + ", Δh " + row.dh + "°");
     if (row.target) fact("target " + row.target.name, (row.target.pass ? "pass" : "fail") + " (ΔE00 " + row.target.dE00 + "; " + row.target.words + ")");
+    if (row.target && row.target.verdict) fact("verdict with uncertainty", row.target.verdict +
+      (row.target.passProbability === undefined ? "" : " (probability of passing " + (100 * row.target.passProbability).toFixed(1) + " %)"));
     Object.keys(d.extra || {}).forEach(function (k) { if (d.extra[k]) fact(k, d.extra[k]); });
     if (row.notes) fact("notes", row.notes);
     row.warnings.forEach(function (w) { fact("note", w); });
@@ -252,7 +265,10 @@ export const REPORT_SCRIPT = `
       bc.parentNode.parentNode.hidden = true;
     }
     charts.push(xyChart(document.getElementById("chart-xy"), d.xy));
-    charts.push(abChart(document.getElementById("chart-ab"), [[d.abFrom[0], d.abFrom[1], d.abTo[0], d.abTo[1]]], row.from, row.to));
+    var ellipses = [];
+    if (d.ellipseFrom) ellipses.push({ points: d.ellipseFrom, color: DAY, label: "95 % region, " + row.from });
+    if (d.ellipseTo) ellipses.push({ points: d.ellipseTo, color: LAMP, label: "95 % region, " + row.to });
+    charts.push(abChart(document.getElementById("chart-ab"), [[d.abFrom[0], d.abFrom[1], d.abTo[0], d.abTo[1]]], row.from, row.to, false, ellipses));
     var sc = document.getElementById("chart-series");
     if (d.series) {
       sc.parentNode.hidden = false;

@@ -44,6 +44,7 @@ table.summary td:first-child { text-align: left; }
 .big .swatches span { width: 90px; height: 60px; }
 .pass { color: var(--pass); font-weight: 600; }
 .fail { color: var(--fail); font-weight: 600; }
+.undecided { color: #8a6d1f; font-weight: 600; }
 .mark { color: var(--lamp); cursor: help; }
 .tag { display: inline-block; font-size: 11px; padding: 0 6px; border-radius: 9px; background: #efe7d6; color: #6b5526; cursor: help; }
 .day { color: var(--day); } .lamp { color: var(--lamp); }

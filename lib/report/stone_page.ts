@@ -45,12 +45,20 @@ function swatches(d: ReportDetail): string {
     : "");
 }
 
+/** A value with its standard uncertainty, when there is one. */
+const pm = (v: number | null | undefined, d: number, sd: number | null | undefined) =>
+  typeof sd === "number" && Number.isFinite(sd) && typeof v === "number" && Number.isFinite(v)
+    ? `${n(v, d)} ± ${n(sd, d)}`
+    : n(v, d);
+
 function numbers(d: ReportDetail): string {
   return `<table class="numbers"><thead><tr><th>light</th><th>observer</th><th>L*</th><th>C*ab</th><th>h (°)</th><th>a*</th><th>b*</th><th>λd / λc (nm)</th></tr></thead><tbody>${
     d.color.map((c) =>
-      `<tr><td>${e(c.illuminant)}</td><td>${e(c.observer)}°</td><td>${n(c.L, 2)}</td><td>${
-        n(c.C, 2)
-      }</td><td>${n(c.h, 1)}</td><td>${n(c.a, 2)}</td><td>${n(c.b, 2)}</td><td>${
+      `<tr><td>${e(c.illuminant)}</td><td>${e(c.observer)}°</td><td>${
+        pm(c.L, 2, c.sd?.L)
+      }</td><td>${pm(c.C, 2, c.sd?.C)}</td><td>${pm(c.h, 1, c.sd?.h)}</td><td>${
+        pm(c.a, 2, c.sd?.a)
+      }</td><td>${pm(c.b, 2, c.sd?.b)}</td><td>${
         c.dominantNm === null ? "—" : `${c.complementary ? "c " : ""}${n(c.dominantNm, 1)}`
       }</td></tr>`
     ).join("")
@@ -61,13 +69,26 @@ function facts(row: ReportRow, d: ReportDetail): string {
   const items: [string, string][] = [];
   items.push([
     `change ${row.from} → ${row.to} (${row.observer}°)`,
-    `ΔE00 ${n(row.dE00, 2)}, Δh ${n(row.dh, 1)}°${row.marked ? ` — ${MARKS.marked.symbol}` : ""}`,
+    `ΔE00 ${pm(row.dE00, 2, row.dE00Sd)}, Δh ${n(row.dh, 1)}°${
+      row.marked ? ` — ${MARKS.marked.symbol}` : ""
+    }`,
   ]);
-  if (row.target) {
+  const t = row.target;
+  if (t) {
     items.push([
-      row.target.name === "target" ? "target" : `target ${row.target.name}`,
-      `${row.target.pass ? "pass" : "fail"} (ΔE00 ${n(row.target.dE00, 2)}; ${row.target.words})`,
+      t.name === "target" ? "target" : `target ${t.name}`,
+      `${t.pass ? "pass" : "fail"} (ΔE00 ${n(t.dE00, 2)}; ${t.words})`,
     ]);
+    if (t.verdict) {
+      items.push([
+        "verdict with uncertainty",
+        `${t.verdict}${
+          t.passProbability === undefined
+            ? ""
+            : ` (probability of passing ${(100 * t.passProbability).toFixed(1)} %)`
+        }`,
+      ]);
+    }
   }
   if (row.dopant) items.push(["dopant estimate (± 1σ)", row.dopant]);
   items.push(["path for colour", row.pathMm === null ? "as measured" : `${row.pathMm} mm`]);
@@ -104,6 +125,7 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
   if (d.bands) {
     const b = d.bands;
     const pts = (arr: number[]) => b.nm.map((x, i) => [x, arr[i]!] as [number, number]);
+    const excluded = b.excluded ?? [];
     out.push(figure(
       "Absorption bands (fit in wavenumber)",
       svgChart({
@@ -113,6 +135,7 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
         yLabel: b.ordinate,
         x: paddedRange(b.nm, 0),
         y: paddedRange([...b.data, ...b.model]),
+        spans: excluded.map((x) => ({ from: x.fromNm, to: x.toNm })),
         series: [
           { points: pts(b.data), color: PALETTE.ink, kind: "line", label: `measured`, size: 1.2 },
           {
@@ -123,7 +146,11 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
             label: "fit (bands + baseline)",
           },
         ],
-      }),
+      }) + (excluded.length
+        ? `<p class="legend">grey: left out of the fit — ${
+          e(excluded.map((x) => `${n(x.fromNm, 0)}–${n(x.toNm, 0)} nm (${x.reason})`).join("; "))
+        }</p>`
+        : ""),
     ));
   }
   const obs = input.xyObserver;
@@ -168,8 +195,17 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
       ],
     }) + `<p class="legend">grey dots: the illuminants' whites</p>`,
   ));
+  const ellipses = [
+    { points: d.ellipseFrom, color: PALETTE.day, light: row.from },
+    { points: d.ellipseTo, color: PALETTE.lamp, light: row.to },
+  ].filter((x) => x.points && x.points.length > 1);
   const lim = Math.ceil(
-    Math.max(10, ...[...d.abFrom, ...d.abTo].map((v) => Math.abs(v) || 0)) * 1.1 / 10,
+    Math.max(
+      10,
+      ...[...d.abFrom, ...d.abTo, ...ellipses.flatMap((x) => x.points!.flat())].map((v) =>
+        Math.abs(v) || 0
+      ),
+    ) * 1.1 / 10,
   ) * 10;
   out.push(figure(
     `a* b* shift, ${row.from} → ${row.to} (${row.observer}°)`,
@@ -187,10 +223,36 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
         { points: [d.abFrom, d.abTo], color: PALETTE.ink, kind: "arrow" },
         { points: [d.abFrom], color: PALETTE.day, kind: "points", label: `under ${row.from}` },
         { points: [d.abTo], color: PALETTE.lamp, kind: "points", label: `under ${row.to}` },
+        ...ellipses.map((x, i) => ({
+          points: x.points!,
+          color: x.color,
+          kind: "line" as const,
+          size: 1,
+          dash: "3 2",
+          ...(i === 0 ? { label: "95 % region" } : {}),
+        })),
       ],
-    }),
+    }) + (ellipses.length
+      ? `<p class="legend">dashed: the 95 % coverage ellipse of (a*, b*) under each light; semi-axes ${
+        e(
+          ellipses.map((x) =>
+            `${x.light} ${semiAxes(x.points!)}`
+          ).join(", "),
+        )
+      }</p>`
+      : ""),
   ));
   return `<div class="stone-charts">${out.join("")}</div>`;
+}
+
+/** The semi-axes of a closed ellipse's points, "major × minor" (half its widest and narrowest spans). */
+function semiAxes(points: [number, number][]): string {
+  const m = points.length - 1; // the last point closes the curve
+  const half = points.slice(0, m).map((p, i) => {
+    const q = points[(i + m / 2) % m] ?? p;
+    return Math.hypot(p[0] - q[0], p[1] - q[1]) / 2;
+  });
+  return `${n(Math.max(...half), 2)} × ${n(Math.min(...half), 2)}`;
 }
 
 function figure(caption: string, svg: string): string {

@@ -41,6 +41,8 @@ export interface SvgPlot {
   series: SvgSeries[];
   /** Keep one data unit the same length on both axes (a*b*, chromaticity). */
   square?: boolean;
+  /** x ranges shaded grey behind the series (e.g. stretches left out of a fit). */
+  spans?: { from: number; to: number }[];
 }
 
 const W = 360, H = 250;
@@ -143,6 +145,16 @@ export function svgChart(plot: SvgPlot): string {
     f(iw)
   }" height="${f(ih)}"/></clipPath>`;
   const body: string[] = [];
+  for (const span of plot.spans ?? []) {
+    const a = Math.max(x0, Math.min(span.from, span.to)),
+      b = Math.min(x1, Math.max(span.from, span.to));
+    if (!(b > a)) continue;
+    body.push(
+      `<rect class="excluded" x="${f(sx(a))}" y="${top}" width="${f(sx(b) - sx(a))}" height="${
+        f(ih)
+      }" fill="#d9d4ca" fill-opacity="0.6"/>`,
+    );
+  }
   for (const s of plot.series) {
     const right = s.axis === "right";
     const pts = s.points.filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));

@@ -76,7 +76,10 @@ describe("crystint color --uncertainty (machine contract)", () => {
   it("--csv gains the scalar columns", async () => {
     const r = await runCli("color", FILE, ...BASE, "--uncertainty", ...SOURCES, "--csv");
     const header = r.stdout.split("\n")[0]!.split(",");
-    for (const k of ["LSd", "aSd", "bSd", "CSd", "hSd"]) expect(header).toContain(k);
+    // headers from the one mapping, lib/analysis/csv_headers.ts
+    for (const k of ["L* sd", "a* sd", "b* sd", "C*ab sd", "h_ab sd (deg)"]) {
+      expect(header).toContain(k);
+    }
     expect(header).not.toContain("labCovariance");
   });
 
