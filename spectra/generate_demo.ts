@@ -257,6 +257,13 @@ calibrations:
   cr-corundum: ../../reports/demo/cr-calibration.json
 targets:
   pink-sapphire: { under: { D65: [45, 15, 6], A: [47, 27, 4] }, observer: "10", toleranceDE00: 3 }
+# standard uncertainties: photometric noise estimated per spectrum, the workshop's gauge and cut
+uncertainty: { thicknessSdMm: 0.01, pathSdMm: 0.05 }
+report:
+  title: Colour statement, lot TCW-26-11
+  lab: Tessel Creek gem laboratory (invented)
+  audience: internal
+  note: Invented demonstration lot; the numbers are measurement aids, not a grading.
 `,
 );
 // Analysed standards (invented values: Cr2O3 by an outside laboratory, with its uncertainty),
