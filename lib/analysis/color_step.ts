@@ -15,6 +15,16 @@ export function pathTransmittance(
   s: SampleSettings,
 ): { t: Float64Array; warnings: string[] } {
   const { values, warnings } = transmittanceForPath(spectrum, s.pathMm, s.reflection);
+  const d = spectrum.thicknessMm, p = s.pathMm;
+  if (
+    s.reflection.reflection === "none" && p !== undefined && d !== undefined &&
+    Math.abs(p - d) > 1e-9 && spectrum.quantity !== "alpha"
+  ) {
+    warnings.push(
+      `rescaled ${d} mm → ${p} mm by Beer–Lambert on the measured absorbance: the two surfaces' ` +
+        `losses are rescaled with the bulk (name a host for Fresnel surfaces)`,
+    );
+  }
   return { t: values, warnings };
 }
 

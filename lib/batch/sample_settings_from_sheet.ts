@@ -30,7 +30,13 @@ export function settingsForSample(
   if (axis) read.axis = axis;
   const alphaBase = row?.alphaBase ?? settings.alphaBase;
   if (alphaBase === "10") read.alphaBase = "10";
-  const reflection: ReflectionSettings = { reflection: settings.reflection };
+  // as on the command line: a host named by the settings or the sheet turns Fresnel surfaces on
+  // unless the settings say otherwise (a host in a file's preamble is free text and does not)
+  const hostKnown = settings.host !== undefined || settings.n !== undefined ||
+    settings.sellmeier !== undefined || row?.host !== undefined;
+  const reflection: ReflectionSettings = {
+    reflection: settings.reflection ?? (hostKnown ? "host" : "none"),
+  };
   if (settings.host !== undefined) reflection.host = settings.host;
   if (settings.n !== undefined) reflection.n = settings.n;
   if (settings.sellmeier !== undefined) reflection.dispersion = parseSellmeier(settings.sellmeier);

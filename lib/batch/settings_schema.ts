@@ -27,7 +27,8 @@ export interface BatchSettings {
   pathMm?: number;
   /** Default measured thickness, mm, when neither file nor manifest says. */
   thicknessMm?: number;
-  reflection: "none" | "host";
+  /** Surfaces: none, host (Fresnel), or unset: host where a host is known, else none. */
+  reflection?: "none" | "host";
   host?: string;
   n?: number;
   /** The user's own Sellmeier coefficients, as for `--sellmeier` (overrides the host's). */
@@ -90,7 +91,6 @@ export function defaultSettings(): BatchSettings {
     illuminants: ["D65", "A"],
     observers: ["2", "10"],
     change: { from: "D65", to: "A", observer: "2", adapt: "none" },
-    reflection: "none",
     targets: {},
     calibrations: {},
     series: { fromMm: 0.5, toMm: 12, steps: 24 },

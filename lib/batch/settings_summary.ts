@@ -14,7 +14,11 @@ export function settingsSummary(settings: BatchSettings): Record<string, string>
     change: `${c.from} → ${c.to}, ${c.observer}°${c.adapt === "none" ? "" : `, ${c.adapt}`}`,
     surfaces: settings.reflection === "host"
       ? `Fresnel (${settings.host ?? (settings.n ? `n ${settings.n}` : "per sample")})`
-      : "Beer–Lambert only",
+      : settings.reflection === "none"
+      ? "Beer–Lambert only"
+      : settings.host !== undefined || settings.n !== undefined || settings.sellmeier
+      ? `Fresnel (${settings.host ?? (settings.n ? `n ${settings.n}` : "own Sellmeier")})`
+      : "Fresnel where the sheet names a host, else Beer–Lambert",
     ...(settings.alphaBase === "10" ? { "α inputs": "decadic (× ln 10)" } : {}),
     ...(u
       ? {

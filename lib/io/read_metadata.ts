@@ -84,15 +84,36 @@ export function parseMetaNumber(value: string): number | undefined {
   return Number.isFinite(v) ? v : undefined;
 }
 
-/** Thickness in mm from a metadata value such as `2.00 mm`, `0,2 cm` or `1500 µm` (unit in
- * the value, else in the key `Thickness (cm)`, else mm). */
+/** mm per unit of the thickness units a file may use. */
+const THICKNESS_UNITS_MM: Record<string, number> = {
+  mm: 1,
+  cm: 10,
+  m: 1000,
+  µm: 1e-3,
+  μm: 1e-3,
+  um: 1e-3,
+  nm: 1e-6,
+  mil: 0.0254, // a thousandth of an inch
+  in: 25.4,
+  inch: 25.4,
+};
+
+/**
+ * Thickness in mm from a metadata value such as `2.00 mm`, `0,2 cm`, `1500 µm` or `59 mil`
+ * (unit in the value, else in the key `Thickness (cm)`, else mm). A value with anything else
+ * after its number (an unknown unit, a range `1.5-1.6`) is not a thickness: undefined.
+ */
 export function parseThicknessMm(value: string, key = ""): number | undefined {
-  const v = parseMetaNumber(value);
+  const m = /^\s*([+-]?[\d.,]+(?:[eE][+-]?\d+)?)\s*([^\s\d.,+-][^\s]*)?\s*$/.exec(value);
+  if (!m) return undefined;
+  const v = parseMetaNumber(m[1]!);
   if (v === undefined) return undefined;
-  const unitInValue = /^\s*[+-]?[\d.,]+(?:[eE][+-]?\d+)?\s*(mm|cm|µm|μm|um|m)\b/i.exec(value)?.[1];
-  const unit = (unitInValue ??
-    (/\bcm\b/i.test(key) ? "cm" : /µm|μm|\bum\b/i.test(key) ? "um" : "mm")).toLowerCase();
-  const mm = unit === "cm" ? v * 10 : unit === "m" ? v * 1000 : unit === "mm" ? v : v / 1000;
+  const keyUnit = /[(\[]\s*(mm|cm|m|µm|μm|um|nm|mil|in|inch)\s*[)\]]/i.exec(key)?.[1] ??
+    (/\bcm\b/i.test(key) ? "cm" : /µm|μm|\bum\b/i.test(key) ? "um" : undefined);
+  const unit = (m[2] ?? keyUnit ?? "mm").toLowerCase();
+  const factor = THICKNESS_UNITS_MM[unit];
+  if (factor === undefined) return undefined;
+  const mm = v * factor;
   return mm > 0 && Number.isFinite(mm) ? mm : undefined;
 }
 
@@ -165,7 +186,14 @@ export function readFileMetadata(
     const words = keyWords(key);
     if (KEYS.thickness.test(words)) {
       const mm = parseThicknessMm(value, key);
-      if (mm === undefined) continue;
+      if (mm === undefined) {
+        out.warnings.push({
+          message: `thickness "${value.slice(0, 40)}" (${key}) is not a number with a known ` +
+            `unit (mm, cm, µm, nm, mil, in): not used`,
+          need: "thickness",
+        });
+        continue;
+      }
       const v = record(key, mm);
       if (!out.thicknessMm) out.thicknessMm = v;
       else if (Math.abs(out.thicknessMm.value - mm) > 1e-9 * mm) {

@@ -195,3 +195,18 @@ describe("reader warnings: once per file, none when the header names the unit", 
     ]);
   });
 });
+
+describe("thickness units (regression: unknown units were read as mm)", () => {
+  it("converts the usual units and refuses the rest", async () => {
+    const { parseThicknessMm } = await import("../../lib/io/read_metadata.ts");
+    // 1 mil = 0.0254 mm, 1 in = 25.4 mm (exact, by definition of the inch)
+    expect(parseThicknessMm("59 mil")).toBeCloseTo(1.4986, 10);
+    expect(parseThicknessMm("0.06 in")).toBeCloseTo(1.524, 10);
+    expect(parseThicknessMm("1500000 nm")).toBeCloseTo(1.5, 10);
+    expect(parseThicknessMm("1.5", "Thickness [mm]")).toBe(1.5);
+    expect(parseThicknessMm("0,15", "Thickness (cm)")).toBeCloseTo(1.5, 12);
+    for (const bad of ["1.5 furlongs", "1.5-1.6 mm", "about 2 mm"]) {
+      expect(parseThicknessMm(bad)).toBeUndefined();
+    }
+  });
+});
