@@ -232,3 +232,13 @@ describe("targets in a batch", () => {
     expect(pair.dE00).toBe(Math.max(...pair.checks.map((c: { dE00: number }) => c.dE00)));
   });
 });
+
+describe("sample sheets from decimal-comma spreadsheets (regression)", () => {
+  it("a semicolon-separated sheet with decimal commas is read, not silently ignored", () => {
+    const rows = parseManifest("sample;file;thickness_mm;path_mm\nA-1;a.csv;1,5;6\n", "s.csv");
+    expect(rows.length).toBe(1);
+    expect(rows[0]!.sample).toBe("A-1");
+    expect(rows[0]!.thicknessMm).toBe(1.5);
+    expect(rows[0]!.pathMm).toBe(6);
+  });
+});
