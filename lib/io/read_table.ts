@@ -153,7 +153,7 @@ export function readTextTable(
   const lines: Line[] = [];
   for (const l of all) {
     const c0 = l.text.charCodeAt(0);
-    if ((c0 >= 48 && c0 <= 57) || c0 === 45 || c0 === 43 || c0 === 46) {
+    if ((c0 >= 48 && c0 <= 57) || c0 === 45 || c0 === 43 || c0 === 46 || c0 === 34) {
       lines.push(l); // a digit, sign or point first: neither a comment nor blank (most lines)
     } else if (isComment(l.text)) {
       comments.push(l.text.replace(/^\s*#\s?/, ""));
@@ -162,7 +162,9 @@ export function readTextTable(
   }
   const numericSample: string[] = [];
   for (const l of lines) {
-    if (looksNumeric(l.text)) numericSample.push(l.text);
+    // quoted cells ("380","0.80") are numbers too
+    const text = l.text.includes('"') ? l.text.replace(/"/g, "") : l.text;
+    if (looksNumeric(text)) numericSample.push(text);
     if (numericSample.length === 50) break;
   }
   if (numericSample.length === 0) {

@@ -210,3 +210,14 @@ describe("thickness units (regression: unknown units were read as mm)", () => {
     }
   });
 });
+
+describe("quoted numeric cells (regression: such files read as having no data)", () => {
+  it('"380","0.80" rows read like unquoted ones', async () => {
+    const { readSpectraFromBytes } = await import("../../lib/io/read_spectra.ts");
+    const rows = ["wavelength_nm,T"];
+    for (let nm = 380; nm <= 780; nm += 20) rows.push(`"${nm}","0.80"`);
+    const [s] = readSpectraFromBytes(new TextEncoder().encode(rows.join("\n")), "q.csv");
+    expect(s!.wavelengthNm.length).toBe(21);
+    expect([...s!.values].every((v) => v === 0.8)).toBe(true);
+  });
+});
