@@ -155,6 +155,7 @@ export const SERIES_COMMAND: CommandSpec = {
       points: SeriesPoint[];
       maxChromaPathMm: number;
       maxChroma: number;
+      maxChromaAtRangeEnd: boolean;
       targetLightnessPathMm?: number;
     }[] = [];
     const failed = await forEachFile(args.positionals, args, (spectra, file) => {
@@ -197,8 +198,11 @@ export const SERIES_COMMAND: CommandSpec = {
     else {
       for (const s of out) {
         console.log(
-          `${s.sample} (${s.illuminant}, ${s.observer}° observer): maximum chroma ` +
-            `${round(s.maxChroma, 2)} at ${round(s.maxChromaPathMm, 2)} mm` +
+          `${s.sample} (${s.illuminant}, ${s.observer}° observer): ` +
+            (s.maxChromaAtRangeEnd
+              ? `chroma largest at the end of the range searched: ${round(s.maxChroma, 2)} at ` +
+                `${round(s.maxChromaPathMm, 2)} mm (widen --from/--to to find its maximum)`
+              : `maximum chroma ${round(s.maxChroma, 2)} at ${round(s.maxChromaPathMm, 2)} mm`) +
             (targetL === undefined
               ? ""
               : s.targetLightnessPathMm === undefined

@@ -40,6 +40,11 @@ export interface ThicknessSeries {
   maxChromaPathMm: number;
   /** Largest C*ab over the paths. */
   maxChroma: number;
+  /**
+   * Whether the largest C*ab sits at an end of the range searched (chroma still rising or
+   * already falling there): then `maxChromaPathMm` is that end, not a maximum of the colour.
+   */
+  maxChromaAtRangeEnd: boolean;
   /** Path where L* reaches the target, when a target was asked for and is reachable. */
   targetLightnessPathMm?: number;
 }
@@ -99,6 +104,7 @@ export function thicknessSeries(spectrum: Spectrum, options: SeriesOptions = {})
     points,
     maxChromaPathMm,
     maxChroma: at(maxChromaPathMm).c.C,
+    maxChromaAtRangeEnd: best === 0 || best === steps,
   };
   if (options.targetL !== undefined) {
     const target = options.targetL;

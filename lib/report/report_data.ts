@@ -67,7 +67,14 @@ export interface ReportDetail {
     }[];
   } | null;
   series:
-    | { pathMm: number[]; L: number[]; C: number[]; srgb: string[]; maxChromaPathMm: number }
+    | {
+      pathMm: number[];
+      L: number[];
+      C: number[];
+      srgb: string[];
+      maxChromaPathMm: number;
+      maxChromaAtRangeEnd: boolean;
+    }
     | null;
   /** Chromaticity under each illuminant and observer, with that white's chromaticity. */
   xy: { illuminant: string; observer: string; x: number; y: number; wx: number; wy: number }[];
@@ -242,6 +249,7 @@ export function reportDetail(result: SampleResult): ReportDetail {
         C: result.series.points.map((p) => r(p.C)),
         srgb: result.series.points.map((p) => p.srgb),
         maxChromaPathMm: r(result.series.maxChromaPathMm, 2),
+        maxChromaAtRangeEnd: result.series.maxChromaAtRangeEnd === true,
       }
       : null,
     xy: result.color.map((row) => {

@@ -279,7 +279,9 @@ export const REPORT_SCRIPT = `
           borderColor: DAY, borderDash: [4, 3], pointRadius: 0 }
       ] }, options: { scales: { x: { title: { display: true, text: "path length (mm)" } }, y: { min: 0, max: 100 } },
         plugins: { legend: { position: "bottom" } } } }));
-      text("series-note", "Maximum chroma at " + d.series.maxChromaPathMm + " mm (" + row.from + ").");
+      text("series-note", d.series.maxChromaAtRangeEnd
+        ? "Chroma is largest at the end of the range computed (" + d.series.maxChromaPathMm + " mm, " + row.from + "), not at a maximum."
+        : "Maximum chroma at " + d.series.maxChromaPathMm + " mm (" + row.from + ").");
     } else {
       sc.parentNode.hidden = true;
       text("series-note", "No thickness is known for this sample, so no thickness series.");
