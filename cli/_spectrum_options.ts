@@ -13,7 +13,10 @@ import { reconcile } from "../lib/analysis/provenance_step.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
 import { getHost, hostIndex, parseSellmeier } from "../lib/optics/refractive_index.ts";
 import { fresnelReflectance } from "../lib/optics/slab.ts";
-import type { ReflectionSettings } from "../lib/optics/path_transmittance.ts";
+import {
+  photometricFloorWarning,
+  type ReflectionSettings,
+} from "../lib/optics/path_transmittance.ts";
 import { customIlluminant, getIlluminant, type Illuminant } from "../lib/cie/illuminants.ts";
 import { getObserver } from "../lib/cie/observers.ts";
 import { log, positiveNumber, reportFailure, UsageError } from "./_shared.ts";
@@ -133,7 +136,14 @@ export function surfaceLossNote(
   args: ParsedArgs,
 ): (spectrum: Spectrum, pathMm: number | undefined) => void {
   let said = false;
+  const floorSaid = new Set<string>();
   return (spectrum, pathMm) => {
+    const file = spectrum.meta.sourceFile ?? spectrum.meta.sample;
+    if (!floorSaid.has(file)) {
+      const floor = photometricFloorWarning(spectrum, pathMm);
+      if (floor.length) floorSaid.add(file);
+      for (const w of floor) log(`crystint: ${file}: ${spectrum.meta.sample}: ${w}`);
+    }
     if (said || reflection.reflection !== "none" || spectrum.quantity === "alpha") return;
     const d = spectrum.thicknessMm;
     if (pathMm === undefined || d === undefined || !(d > 0) || Math.abs(pathMm - d) < 1e-9) return;

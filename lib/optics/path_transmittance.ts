@@ -87,8 +87,9 @@ export function transmittanceForPath(
   pathMm: number | undefined,
   settings: ReflectionSettings = { reflection: "none" },
 ): { values: Float64Array<ArrayBuffer>; warnings: string[] } {
+  const floor = photometricFloorWarning(spectrum, pathMm);
   if (settings.reflection === "none") {
-    return { values: transmittanceAtPath(spectrum, pathMm), warnings: [] };
+    return { values: transmittanceAtPath(spectrum, pathMm), warnings: floor };
   }
   const { r, warnings } = surfaceReflectance(
     spectrum.wavelengthNm,
@@ -122,7 +123,43 @@ export function transmittanceForPath(
     const x = Math.exp(k * path);
     return surfaces ? slabTransmittance(x, r[i]!) : x;
   });
-  return { values, warnings };
+  return { values, warnings: [...floor, ...warnings] };
+}
+
+/** Measured T below which a point is near the photometric floor (common practice: 0.2 %). */
+export const FLOOR_TRANSMITTANCE = 0.002;
+
+/**
+ * A warning when a spectrum measured down at the photometric floor is rescaled to a shorter
+ * path: there its absorbance is a lower bound, and a thinner stone would let through light the
+ * measurement never saw.
+ */
+export function photometricFloorWarning(
+  spectrum: Spectrum,
+  pathMm: number | undefined,
+): string[] {
+  const d = spectrum.thicknessMm;
+  if (pathMm === undefined || d === undefined || !(pathMm < d) || spectrum.quantity === "alpha") {
+    return [];
+  }
+  let low = 0, fromNm = Infinity, toNm = -Infinity;
+  const a = spectrum.quantity === "absorbance";
+  for (let i = 0; i < spectrum.values.length; i++) {
+    const v = spectrum.values[i]!;
+    const t = a ? 10 ** -v : spectrum.quantity === "transmittance" ? v : 1;
+    if (t < FLOOR_TRANSMITTANCE) {
+      low++;
+      const nm = spectrum.wavelengthNm[i]!;
+      if (nm < fromNm) fromNm = nm;
+      if (nm > toNm) toNm = nm;
+    }
+  }
+  if (low === 0 || toNm < 360 || fromNm > 830) return [];
+  return [
+    `${low} point(s) between ${fromNm} and ${toNm} nm are below T ${FLOOR_TRANSMITTANCE} ` +
+    `(near the photometric floor): rescaled to the shorter path ${pathMm} mm their absorbance ` +
+    `is only a lower bound, so the colour there is uncertain`,
+  ];
 }
 
 /**

@@ -46,3 +46,14 @@ describe("transmittanceForPath()", () => {
     expect([...t]).toEqual([0.5, 0.5]);
   });
 });
+
+describe("rescaling a spectrum measured down to the photometric floor", () => {
+  it("says so when the path is shorter than the measured slab, not when it is longer", async () => {
+    const { photometricFloorWarning } = await import("../../lib/optics/path_transmittance.ts");
+    // absorbance 4.5 is T = 3e-5: at the floor of most spectrophotometers (common practice)
+    const s = slab([0.00003, 0.00003, 0.4, 0.6, 0.9], 4);
+    expect(photometricFloorWarning(s, 1).join(" ")).toMatch(/2 point\(s\) between 400 and 450 nm/);
+    expect(photometricFloorWarning(s, 6)).toEqual([]);
+    expect(transmittanceForPath(s, 1).warnings.join(" ")).toMatch(/photometric floor/);
+  });
+});
