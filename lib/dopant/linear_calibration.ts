@@ -202,7 +202,19 @@ export function predictConcentration(cal: Calibration, y0: number, sigmaY0 = 0, 
     ? (x * x) / cal.points.reduce((a, p) => a + p.x * p.x, 0)
     : 1 / cal.n + (y0 - cal.meanY) ** 2 / (b * b * cal.sxx);
   const own = Number.isFinite(sigmaY0) ? sigmaY0 : 0;
-  const variance = (s * s / (b * b)) * (1 / m + lever) + (own / b) ** 2;
+  let variance: number;
+  if (cal.mode === "weighted") {
+    // the weighted fit's s_y/x is of unit weight, so Miller & Miller's eq. 5.9 does not apply:
+    // first-order propagation through the line's covariance (GUM), plus the new response's own
+    // variance (given, else the standards' mean response variance)
+    const given = cal.points.map((p) => p.sigmaY).filter((v): v is number => v !== undefined);
+    const typical = given.length ? given.reduce((a, v) => a + v * v, 0) / given.length : 0;
+    const responseVar = own > 0 ? own * own : typical / m;
+    variance = (responseVar + cal.interceptSigma ** 2 + x * x * cal.slopeSigma ** 2 +
+      2 * x * cal.covariance) / (b * b);
+  } else {
+    variance = (s * s / (b * b)) * (1 / m + lever) + (own / b) ** 2;
+  }
   const sigma = Math.sqrt(variance);
   return {
     x,

@@ -371,7 +371,9 @@ export function spectraFromTable(
     if (metadata.instrument) meta.instrument = metadata.instrument;
     const spectrum: Spectrum = { wavelengthNm, values, quantity, meta };
     if (clipped > 0) {
-      spectrum.meta.warnings = [`${clipped} value(s) slightly outside 0..1 clipped (noise)`];
+      spectrum.meta.warnings = [
+        `${clipped} value(s) slightly outside 0..1 clipped (noise, or a baseline or reference a little off)`,
+      ];
     }
     if (thicknessMm !== undefined) spectrum.thicknessMm = thicknessMm;
     if (polarisation) spectrum.polarisation = polarisation;

@@ -2,6 +2,7 @@ import { describe, it } from "node:test";
 import { expect } from "expect";
 import { fitCalibration, predictConcentration } from "../../lib/dopant/mod.ts";
 import { studentTQuantile } from "../../lib/numeric/mod.ts";
+import { seededNormal } from "../_random.ts";
 
 const MX = [0, 2, 4, 6, 8, 10, 12];
 const MY = [2.1, 5.0, 9.0, 12.6, 17.3, 21.0, 24.7];
@@ -57,5 +58,28 @@ describe("straight-line calibration", () => {
   it("Student t quantiles: t(0.975, 5) = 2.5706, t(0.975, 10) = 2.2281 (standard tables)", () => {
     expect(studentTQuantile(0.975, 5)).toBeCloseTo(2.5706, 4);
     expect(studentTQuantile(0.975, 10)).toBeCloseTo(2.2281, 4);
+  });
+});
+
+describe("inverse prediction from a weighted calibration (regression: σ was of unit weight)", () => {
+  it("σ of x̂ matches a Monte Carlo of refitted lines and new responses (GUM propagation)", () => {
+    const xs = [0.05, 0.1, 0.2, 0.35, 0.5], sy = xs.map((x) => 0.02 + 0.05 * x);
+    const line = (x: number) => 0.01 + 4 * x; // invented true line
+    const normal = seededNormal(99);
+    const y0 = line(0.22), sy0 = 0.03;
+    const fit = (noise: boolean) =>
+      fitCalibration(
+        xs.map((x, i) => ({ x, y: line(x) + (noise ? sy[i]! * normal() : 0), sigmaY: sy[i]! })),
+        "weighted",
+      );
+    const predicted = predictConcentration(fit(false), y0, sy0);
+    const draws: number[] = [];
+    for (let k = 0; k < 3000; k++) {
+      draws.push(predictConcentration(fit(true), y0 + sy0 * normal(), sy0).x);
+    }
+    const mean = draws.reduce((a, v) => a + v, 0) / draws.length;
+    const sd = Math.sqrt(draws.reduce((a, v) => a + (v - mean) ** 2, 0) / (draws.length - 1));
+    expect(predicted.sigma / sd).toBeGreaterThan(0.9);
+    expect(predicted.sigma / sd).toBeLessThan(1.1);
   });
 });
