@@ -189,9 +189,11 @@ describe("reader warnings: once per file, none when the header names the unit", 
       rows.push(`${400 + 10 * i},` + new Array(50).fill(i === 3 ? "1.01" : "0.5").join(","));
     }
     const spectra = readSpectraFromBytes(bytes(rows.join("\n")), "noisy.csv");
-    expect(spectra[7]!.meta.warnings).toEqual(["1 value(s) slightly outside 0..1 clipped (noise)"]);
+    expect(spectra[7]!.meta.warnings).toEqual([
+      "1 value(s) slightly outside 0..1 clipped (noise, or a baseline or reference a little off)",
+    ]);
     expect(readerWarnings(spectra)).toEqual([
-      "50 of 50 spectra: value(s) slightly outside 0..1 clipped (noise)",
+      "50 of 50 spectra: value(s) slightly outside 0..1 clipped (noise, or a baseline or reference a little off)",
     ]);
   });
 });
