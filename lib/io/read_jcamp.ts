@@ -167,6 +167,21 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
   let dataLine = 0;
   let prevLastY: number | undefined;
   let prevEndsInDif = false;
+  // more points than the file declares is malformed; more than the reader's cap is too large
+  const tooMany = (declared: number, cap: number, line: number) =>
+    declared === cap
+      ? new InputError(
+        "malformed",
+        file,
+        line,
+        `The table holds more than the ${declared} points NPOINTS says`,
+      )
+      : new InputError(
+        "too-large",
+        file,
+        line,
+        `The table holds more than ${cap} points; at most ${limits.maxPoints} are read`,
+      );
   const num = (k: string, fallback: number) => {
     const v = Number((fields[k] ?? "").replace(",", "."));
     return Number.isFinite(v) && fields[k] !== undefined && fields[k] !== "" ? v : fallback;
@@ -202,19 +217,7 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
       : limits.maxPoints;
     // at the declared count only a DIF line's closing Y-check line may follow
     if (rows.length >= cap && !(mode === "xydata" && prevEndsInDif)) {
-      throw declared === cap
-        ? new InputError(
-          "malformed",
-          file,
-          n + 1,
-          `The table holds more than the ${declared} points NPOINTS says`,
-        )
-        : new InputError(
-          "too-large",
-          file,
-          n + 1,
-          `The table holds more than ${cap} points; at most ${limits.maxPoints} are read`,
-        );
+      throw tooMany(declared, cap, n + 1);
     }
     // room for the rest of the points, the leading X and a repeated check value
     const room = mode === "xypoints" ? 2 * (cap - rows.length) : cap - rows.length + 2;
@@ -225,19 +228,7 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
         rowLines.push(n + 1);
       }
       if (rows.length > cap) {
-        throw declared === cap
-          ? new InputError(
-            "malformed",
-            file,
-            n + 1,
-            `The table holds more than the ${declared} points NPOINTS says`,
-          )
-          : new InputError(
-            "too-large",
-            file,
-            n + 1,
-            `The table holds more than ${cap} points; at most ${limits.maxPoints} are read`,
-          );
+        throw tooMany(declared, cap, n + 1);
       }
       continue;
     }
@@ -269,19 +260,7 @@ export function readJcamp(text: string, file: string, options: ReadOptions = {})
       });
     }
     if (rows.length > cap) {
-      throw declared === cap
-        ? new InputError(
-          "malformed",
-          file,
-          n + 1,
-          `The table holds more than the ${declared} points NPOINTS says`,
-        )
-        : new InputError(
-          "too-large",
-          file,
-          n + 1,
-          `The table holds more than ${cap} points; at most ${limits.maxPoints} are read`,
-        );
+      throw tooMany(declared, cap, n + 1);
     }
     prevLastY = values[values.length - 1];
     prevEndsInDif = endsInDif;
