@@ -14,7 +14,7 @@ import {
   type ResponseMetric,
   spectrumResponse,
 } from "../lib/dopant/response_metric.ts";
-import { parseStandards } from "../lib/dopant/standards.ts";
+import { parseStandardsTable } from "../lib/dopant/standards.ts";
 import { readSpectrumFile } from "../lib/io/read_file.ts";
 import { InputError } from "../lib/io/input_error.ts";
 import { writeTextAtomic } from "../lib/batch/atomic_write.ts";
@@ -140,9 +140,11 @@ async function calibrateCommand(args: ParsedArgs): Promise<number> {
     options.windowNm = [Number(m[1]), Number(m[2])];
   }
   const table = positionals[0]!;
-  let rows;
+  let rows, named;
   try {
-    rows = parseStandards(await Deno.readTextFile(table), table);
+    const parsed = parseStandardsTable(await Deno.readTextFile(table), table);
+    rows = parsed.rows;
+    named = parsed.response;
   } catch (e) {
     if (e instanceof InputError) throw new UsageError(e.message);
     throw new UsageError(`Cannot read ${table}: ${(e as Error).message}`);
@@ -151,7 +153,10 @@ async function calibrateCommand(args: ParsedArgs): Promise<number> {
   let failed = 0;
   for (const row of rows) {
     try {
-      let y = row.response, sy = row.responseSigma;
+      // a response column whose header says decadic α holds α₁₀: stored as natural α (× ln 10)
+      const scale = named?.alphaBase === "10" ? Math.LN10 : 1;
+      let y = row.response === undefined ? undefined : row.response * scale;
+      let sy = row.responseSigma === undefined ? undefined : row.responseSigma * scale;
       if (y === undefined) {
         const path = resolve(dirname(table), row.file!);
         const [read] = await readSpectrumFile(path, {
@@ -171,15 +176,21 @@ async function calibrateCommand(args: ParsedArgs): Promise<number> {
       reportFailure(e, `${table}:${row.line}`);
     }
   }
+  // ready responses keep the metric their column header names (so predict can apply it to
+  // spectra); a bare "response" column stays "response", which predict refuses for spectra
+  const fromSpectra = rows.some((r) => r.response === undefined);
+  const calMetric = fromSpectra ? metric : named?.metric ?? "response";
+  const calOptions = fromSpectra || !named?.metric ? { ...options } : { ...named.options };
+  if (!fromSpectra && named) {
+    log(
+      `crystint: ${table}: responses read as ${
+        named.metric ?? "an unnamed response (predict cannot apply it to spectra)"
+      } from the header "${named.header}"${named.alphaBase === "10" ? ", decadic α × ln 10" : ""}`,
+    );
+  }
   let cal;
   try {
-    cal = fitCalibration(
-      points,
-      mode,
-      rows[0]?.unit ?? "",
-      rows.some((r) => r.response === undefined) ? metric : "response",
-      { ...options },
-    );
+    cal = fitCalibration(points, mode, rows[0]?.unit ?? "", calMetric, calOptions);
   } catch (e) {
     throw new UsageError((e as Error).message);
   }

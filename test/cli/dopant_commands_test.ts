@@ -116,3 +116,20 @@ describe("crystint calibrate / predict / aim / segregation (machine contract)", 
     expect(fit.kSigma).toBeGreaterThan(0);
   });
 });
+
+describe("calibrate from a table of ready responses", () => {
+  it("keeps the metric its header names, so predict can apply the calibration to spectra", async () => {
+    const dir = await Deno.makeTempDir();
+    await Deno.writeTextFile(
+      `${dir}/std.csv`,
+      "sample,Cr2O3 (wt%),band height (cm-1) @ 555 nm\nA,0.1,1.0\nB,0.2,2.1\nC,0.3,2.9\nD,0.4,4.1\n",
+    );
+    const r = await runCli("calibrate", `${dir}/std.csv`, "--out", `${dir}/cal.json`, "--json");
+    expect(r.code).toBe(0);
+    const cal = JSON.parse(await Deno.readTextFile(`${dir}/cal.json`));
+    expect(cal.metric).toBe("band-height");
+    expect(cal.metricOptions.bandNm).toBe(555);
+    // closed-form OLS slope of these four points: Σ(x−x̄)(y−ȳ)/Σ(x−x̄)² = 0.505 / 0.05 = 10.1
+    expect(cal.slope).toBeCloseTo(10.1, 9);
+  });
+});
