@@ -81,7 +81,7 @@ try {
   }).output();
   const text = new TextDecoder().decode(out.stderr);
   const rssKb = Number(/Maximum resident set size \(kbytes\): (\d+)/.exec(text)?.[1] ?? NaN);
-  const wall = /Elapsed \(wall clock\) time[^:]*: (\S+)/.exec(text)?.[1];
+  const wall = /Elapsed \(wall clock\)[^\n]*: ([\d:.]+)/.exec(text)?.[1];
   const size = (await Deno.stat(csv)).size;
   const timeAt = text.indexOf("\tCommand being timed");
   const stderrLines = text.slice(0, timeAt < 0 ? text.length : timeAt).split("\n")
