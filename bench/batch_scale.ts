@@ -164,20 +164,25 @@ if (browser) {
     const page = await b.newPage();
     const load = loadAverage();
     const t0 = performance.now();
-    await page.goto(`file://${out}/index.html`, {
+    // The row may be painted while the parser is still reading the rest of the page, so the
+    // selector is awaited alongside the navigation; DOMContentLoaded is when scripts can run.
+    let contentLoaded = NaN;
+    const navigation = page.goto(`file://${out}/index.html`, {
       waitUntil: "domcontentloaded",
       timeout: 120_000,
-    });
+    }).then(() => contentLoaded = (performance.now() - t0) / 1000);
     await page.waitForSelector("#summary tbody tr", { visible: true, timeout: 120_000 });
     const visible = (performance.now() - t0) / 1000;
+    await navigation;
     await page.waitForNetworkIdle({ idleTime: 200, timeout: 120_000 }).catch(() => {});
     const settled = (performance.now() - t0) / 1000;
     const rows = await page.$$eval("#summary tbody tr", (r) => r.length);
     console.log(
-      `index.html in Chromium: first table row visible after ${visible.toFixed(2)} s, ` +
-        `network idle after ${
+      `index.html in Chromium: first summary row visible after ${visible.toFixed(2)} s, ` +
+        `DOMContentLoaded after ${contentLoaded.toFixed(2)} s, idle after ${
           settled.toFixed(2)
-        } s, ${rows} rows in the DOM, load average before ${load}`,
+        } s, ` +
+        `${rows} rows in the DOM, load average before ${load}`,
     );
   } finally {
     await b.close();
