@@ -7,6 +7,8 @@
 const SPECTRA = 10_000, FROM = 380, POINTS = 401;
 const dir = await Deno.makeTempDir({ prefix: "crystint-bench-" });
 const csv = `${dir}/lot.csv`, ti3 = `${dir}/lot.ti3`;
+// 56 MB of inputs: removed when the bench process ends.
+globalThis.addEventListener("unload", () => Deno.removeSync(dir, { recursive: true }));
 
 /** A smooth, different transmittance per spectrum (invented; speed only). */
 const t = (k: number, i: number) => 0.5 + 0.4 * Math.sin((FROM + i) / 40 + k);
@@ -28,7 +30,9 @@ const t = (k: number, i: number) => 0.5 + 0.4 * Math.sin((FROM + i) / 40 + k);
   );
   await Deno.writeTextFile(
     ti3,
-    `CTI3\nDESCRIPTOR "bench"\nORIGINATOR "crystint bench"\nKEYWORD "SPECTRAL_BANDS"\n` +
+    `CTI3\nDESCRIPTOR "bench"\nORIGINATOR "crystint bench"\n` +
+      `KEYWORD "DEVICE_CLASS"\nDEVICE_CLASS "OUTPUT"\nKEYWORD "MEAS_TYPE"\nMEAS_TYPE "TRANSMISSIVE"\n` +
+      `KEYWORD "SPECTRAL_BANDS"\n` +
       `SPECTRAL_BANDS "${POINTS}"\nKEYWORD "SPECTRAL_START_NM"\nSPECTRAL_START_NM "${FROM}.0"\n` +
       `KEYWORD "SPECTRAL_END_NM"\nSPECTRAL_END_NM "${FROM + POINTS - 1}.0"\n` +
       `KEYWORD "SPECTRAL_NORM"\nSPECTRAL_NORM "1.0"\nNUMBER_OF_FIELDS ${POINTS + 1}\n` +
@@ -39,8 +43,11 @@ const t = (k: number, i: number) => 0.5 + 0.4 * Math.sin((FROM + i) / 40 + k);
 
 const main = new URL("../cli/main.ts", import.meta.url).pathname;
 const run = async (cmd: string, args: string[]) => {
-  const out = await new Deno.Command(cmd, { args, stdout: "null", stderr: "null" }).output();
-  if (out.code !== 0) throw new Error(`${cmd} exited ${out.code}`);
+  const out = await new Deno.Command(cmd, { args, stdout: "null", stderr: "piped" }).output();
+  if (out.code !== 0) {
+    const tail = new TextDecoder().decode(out.stderr).slice(-600);
+    throw new Error(`${cmd} exited ${out.code}: ${tail}`);
+  }
 };
 const havePeer = await new Deno.Command("spec2cie", {
   args: ["-?"],
@@ -49,24 +56,52 @@ const havePeer = await new Deno.Command("spec2cie", {
 })
   .output().then(() => true, () => false);
 
+const colorArgs = [
+  "run",
+  "--allow-read",
+  main,
+  "color",
+  csv,
+  "--illuminant",
+  "D65,A",
+  "--observer",
+  "2,10",
+  "--ordinate",
+  "transmittance",
+  "--csv",
+];
+
+// Once at load: peak RSS of one `crystint color` run against the input size (budget ≤ 3×),
+// and how many lines it wrote to stderr (warnings should come once per file).
+try {
+  const out = await new Deno.Command("/usr/bin/time", {
+    args: ["-v", Deno.execPath(), ...colorArgs],
+    stdout: "null",
+    stderr: "piped",
+  }).output();
+  const text = new TextDecoder().decode(out.stderr);
+  const rssKb = Number(/Maximum resident set size \(kbytes\): (\d+)/.exec(text)?.[1] ?? NaN);
+  const wall = /Elapsed \(wall clock\)[^\n]*: ([\d:.]+)/.exec(text)?.[1];
+  const size = (await Deno.stat(csv)).size;
+  const timeAt = text.indexOf("\tCommand being timed");
+  const stderrLines = text.slice(0, timeAt < 0 ? text.length : timeAt).split("\n")
+    .filter((l) => l.trim() !== "").length;
+  console.log(
+    `crystint color, one run: ${wall} wall, peak RSS ${(rssKb / 1024).toFixed(0)} MB for a ` +
+      `${(size / 1e6).toFixed(1)} MB input (${(rssKb * 1024 / size).toFixed(2)}× the input), ` +
+      `${stderrLines} stderr line(s), exit ${out.code}`,
+  );
+} catch {
+  console.log("peak RSS not measured: /usr/bin/time is missing (Debian package time)");
+}
+
 Deno.bench("crystint color, 10,000 spectra, D65+A × 2°+10°, CSV out", {
   group: "color end to end",
   baseline: true,
   n: 3,
   warmup: 1,
 }, async () => {
-  await run(Deno.execPath(), [
-    "run",
-    "--allow-read",
-    main,
-    "color",
-    csv,
-    "--illuminant",
-    "D65,A",
-    "--observer",
-    "2,10",
-    "--csv",
-  ]);
+  await run(Deno.execPath(), colorArgs);
 });
 
 Deno.bench({

@@ -4,7 +4,6 @@
  * @module
  */
 import { roundTo } from "../lib/numeric/round.ts";
-import { stringify } from "csv-stringify/sync";
 import { InputError } from "../lib/io/input_error.ts";
 import { csvHeader } from "../lib/analysis/csv_headers.ts";
 
@@ -95,12 +94,22 @@ function csvCell(value: unknown): unknown {
   return value;
 }
 
-/** Rows as CSV text, with the readable header of each key (lib/analysis/csv_headers.ts). */
+/** One CSV field (RFC 4180): quoted when it holds a comma, quote or line break. */
+function csvField(value: unknown): string {
+  const cell = csvCell(value);
+  const text = typeof cell === "string" ? cell : String(cell);
+  return /[",\n\r]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
+}
+
+/**
+ * Rows as CSV text, with the readable header of each key (lib/analysis/csv_headers.ts).
+ * Written directly, not through csv-stringify: the same text (test/cli/to_csv_test.ts checks it
+ * against csv-stringify) at a fraction of the time and memory for 40,000-row outputs.
+ */
 export function toCsv(rows: Record<string, unknown>[], keys: string[]): string {
-  return stringify(rows.map((r) => keys.map((k) => csvCell(r[k]))), {
-    header: true,
-    columns: keys.map(csvHeader),
-  });
+  const lines = [keys.map((k) => csvField(csvHeader(k))).join(",")];
+  for (const r of rows) lines.push(keys.map((k) => csvField(r[k])).join(","));
+  return lines.join("\n") + "\n";
 }
 
 /** Output format chosen by `--json` / `--csv`, or the terminal table. */
