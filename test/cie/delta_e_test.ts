@@ -109,7 +109,7 @@ describe("ΔE*ab, CIE94 and CMC(l:c)", () => {
 });
 
 /**
- * Independent route: a literal transcription of Sharma, Wu & Dalal (2005) eq. 1–25 with one
+ * Independent route: a literal implementation of Sharma, Wu & Dalal (2005) eq. 1–25 with one
  * trigonometric call per angle (the construction used before the allocation-free core).
  */
 function literalDeltaE2000(l1: { L: number; a: number; b: number }, l2: typeof l1): number {
@@ -194,7 +194,7 @@ function stressPairs(count: number) {
 }
 
 describe("deltaE2000() allocation-free core", () => {
-  it("equals the literal transcription of Sharma et al. (2005) eq. 1–25 within 1e-9 on 120,000 seeded pairs", () => {
+  it("equals the literal implementation of Sharma et al. (2005) eq. 1–25 within 1e-9 on 120,000 seeded pairs", () => {
     let worst = 0;
     for (const [p1, p2] of stressPairs(120_000)) {
       for (const [x, y] of [[p1, p2], [p2, p1]] as const) {
@@ -204,7 +204,7 @@ describe("deltaE2000() allocation-free core", () => {
     expect(worst).toBeLessThan(1e-9);
   });
 
-  it("equals the literal transcription on every Sharma et al. (2005) pair within 1e-12", () => {
+  it("equals the literal implementation on every Sharma et al. (2005) pair within 1e-12", () => {
     for (const p of SHARMA) {
       const l1 = lab(p[0]!, p[1]!, p[2]!), l2 = lab(p[3]!, p[4]!, p[5]!);
       expect(Math.abs(deltaE2000(l1, l2) - literalDeltaE2000(l1, l2))).toBeLessThan(1e-12);
