@@ -34,6 +34,46 @@ export async function writeTextAtomic(path: string, text: string): Promise<void>
  * Writes a stream of text chunks to a new temporary file beside `path` and returns its name;
  * on failure the temporary is removed and the error rethrown.
  */
+/** A temporary file beside `path`, written in pieces; `finish` returns its name. */
+export interface TempWriter {
+  /** Appends text. */
+  write(text: string): Promise<void>;
+  /** Flushes and closes; returns the temporary file's path. */
+  finish(): Promise<string>;
+  /** Closes and removes the temporary file (after a failure). */
+  abandon(): Promise<void>;
+}
+
+/** Opens a temporary file beside `path` for writing in pieces. */
+export async function openTemp(path: string): Promise<TempWriter> {
+  const tmp = tempPathFor(path);
+  const file = await Deno.open(tmp, { write: true, createNew: true });
+  const encoder = new TextEncoder();
+  let open = true;
+  const close = () => {
+    if (open) file.close();
+    open = false;
+  };
+  return {
+    async write(text) {
+      const bytes = encoder.encode(text);
+      let written = 0;
+      while (written < bytes.length) written += await file.write(bytes.subarray(written));
+    },
+    async finish() {
+      await file.syncData().catch(() => {});
+      close();
+      return tmp;
+    },
+    async abandon() {
+      try {
+        close();
+      } catch { /* already closed */ }
+      await Deno.remove(tmp).catch(() => {});
+    },
+  };
+}
+
 export async function writeChunksToTemp(
   path: string,
   chunks: AsyncIterable<string> | Iterable<string>,

@@ -1,6 +1,6 @@
 /**
  * Writes a batch's three outputs from the cached results, streaming so memory does not grow
- * with the batch: results.json first, then results.csv, then index.html rendered through the
+ * with the batch: results.json and results.csv in one pass, then index.html rendered through the
  * same report builder `crystint report` uses. All three go to temporaries first and are renamed
  * into place only when every one is complete, so a failure (disk full, permission) leaves the
  * previous outputs as they were: all replaced or none.
@@ -11,7 +11,7 @@ import type { SampleResult } from "../analysis/sample_result.ts";
 import type { ResultsError, ResultsHeader } from "../analysis/results_document.ts";
 import { ReportInputBuilder } from "../report/report_input.ts";
 import { renderReport } from "../report/render_report.ts";
-import { writeChunksToTemp } from "./atomic_write.ts";
+import { openTemp, type TempWriter, writeChunksToTemp } from "./atomic_write.ts";
 import { readChartBundle } from "./chart_bundle.ts";
 import { resultsCsvHeader, resultsCsvRows } from "./results_csv.ts";
 import { OutputError } from "./output_error.ts";
@@ -35,7 +35,7 @@ export function outputPaths(outDir: string): OutputPaths {
   };
 }
 
-/** A source of the sample results in input order, read afresh on each call. */
+/** A source of the sample results in input order (read once). */
 export type ResultSource = () => AsyncIterable<SampleResult>;
 
 /**
@@ -54,33 +54,37 @@ export async function writeOutputs(
 ): Promise<number> {
   const builder = new ReportInputBuilder(header);
   let samples = 0;
-  async function* jsonChunks() {
+  const temps: [string, string][] = [];
+  // results.json and results.csv are written in one pass over the cached results
+  const writers: [TempWriter, string][] = [];
+  try {
+    const json = await openTemp(paths.json);
+    writers.push([json, paths.json]);
+    const csv = await openTemp(paths.csv);
+    writers.push([csv, paths.csv]);
     const { version, settings, settingsSummary, calibrations, detailLimit, report } = header;
-    yield `{"version":${JSON.stringify(version)},"settings":${JSON.stringify(settings)},` +
-      `"settingsSummary":${JSON.stringify(settingsSummary)},` +
-      `"calibrations":${JSON.stringify(calibrations)},"detailLimit":${detailLimit},` +
-      `${report ? `"report":${JSON.stringify(report)},` : ""}"samples":[`;
-    let first = true;
+    await json.write(
+      `{"version":${JSON.stringify(version)},"settings":${JSON.stringify(settings)},` +
+        `"settingsSummary":${JSON.stringify(settingsSummary)},` +
+        `"calibrations":${JSON.stringify(calibrations)},"detailLimit":${detailLimit},` +
+        `${report ? `"report":${JSON.stringify(report)},` : ""}"samples":[`,
+    );
+    await csv.write(resultsCsvHeader(extraColumns));
     for await (const result of results()) {
-      yield `${first ? "" : ","}\n${JSON.stringify(result)}`;
-      first = false;
+      await json.write(`${samples === 0 ? "" : ","}\n${JSON.stringify(result)}`);
+      await csv.write(resultsCsvRows(result, extraColumns));
       samples++;
       builder.add(result);
     }
-    yield `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)}}\n`;
-  }
-  const temps: [string, string][] = [];
-  try {
-    temps.push([await writeChunksToTemp(paths.json, jsonChunks()), paths.json]);
-    const csvChunks = async function* () {
-      yield resultsCsvHeader(extraColumns);
-      for await (const result of results()) yield resultsCsvRows(result, extraColumns);
-    };
-    temps.push([await writeChunksToTemp(paths.csv, csvChunks()), paths.csv]);
+    await json.write(
+      `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)}}\n`,
+    );
+    for (const [w, path] of writers.splice(0)) temps.push([await w.finish(), path]);
     const html = renderReport(builder.finish(errors, manifestNotes), await readChartBundle());
     temps.push([await writeChunksToTemp(paths.html, [html]), paths.html]);
     for (const [tmp, path] of temps) await Deno.rename(tmp, path);
   } catch (e) {
+    for (const [w] of writers) await w.abandon();
     for (const [tmp] of temps) await Deno.remove(tmp).catch(() => {});
     throw new OutputError(temps.length < 3 ? pathBeingWritten(paths, temps.length) : paths.html, e);
   }
