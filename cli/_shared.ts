@@ -96,6 +96,8 @@ function csvCell(value: unknown): unknown {
 
 /** One CSV field (RFC 4180): quoted when it holds a comma, quote or line break. */
 function csvField(value: unknown): string {
+  // a number's text never holds a comma, quote or line break
+  if (typeof value === "number") return String(value);
   const cell = csvCell(value);
   const text = typeof cell === "string" ? cell : String(cell);
   return /[",\n\r]/.test(text) ? `"${text.replaceAll('"', '""')}"` : text;
@@ -107,9 +109,34 @@ function csvField(value: unknown): string {
  * against csv-stringify) at a fraction of the time and memory for 40,000-row outputs.
  */
 export function toCsv(rows: Record<string, unknown>[], keys: string[]): string {
-  const lines = [keys.map((k) => csvField(csvHeader(k))).join(",")];
-  for (const r of rows) lines.push(keys.map((k) => csvField(r[k])).join(","));
-  return lines.join("\n") + "\n";
+  return Array.from(csvPieces(rows, keys)).join("");
+}
+
+/**
+ * The text of {@linkcode toCsv} in pieces of about `size` characters, header first, so a large
+ * output is written as it is made instead of being held whole.
+ */
+export function* csvPieces(
+  rows: Record<string, unknown>[],
+  keys: string[],
+  size = 1 << 20,
+): Generator<string> {
+  let piece = keys.map((k) => csvField(csvHeader(k))).join(",") + "\n";
+  for (const r of rows) {
+    let line = csvField(r[keys[0]!]);
+    for (let k = 1; k < keys.length; k++) line += "," + csvField(r[keys[k]!]);
+    piece += line + "\n";
+    if (piece.length >= size) {
+      yield piece;
+      piece = "";
+    }
+  }
+  if (piece !== "") yield piece;
+}
+
+/** Writes rows as CSV to stdout piece by piece (the text of {@linkcode toCsv}). */
+export function writeCsv(rows: Record<string, unknown>[], keys: string[]): void {
+  for (const piece of csvPieces(rows, keys)) writeStdout(piece);
 }
 
 /** Output format chosen by `--json` / `--csv`, or the terminal table. */

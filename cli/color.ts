@@ -3,7 +3,10 @@
  *
  * @module
  */
-import { type ColorRow, spectrumColor } from "../lib/cie/spectrum_color.ts";
+import type { ColorRow } from "../lib/cie/spectrum_color.ts";
+import { conditionsOf, spectraColorRows } from "../lib/cie/spectra_color_many.ts";
+import { transmittanceForPath } from "../lib/optics/path_transmittance.ts";
+import type { Spectrum } from "../lib/spectrum/spectrum.ts";
 import type { CommandSpec } from "./_command.ts";
 import { MARKS } from "../lib/report/marks.ts";
 import {
@@ -13,10 +16,9 @@ import {
   outputFormat,
   positiveNumber,
   round,
-  toCsv,
   toTable,
   UsageError,
-  writeStdout,
+  writeCsv,
 } from "./_shared.ts";
 import {
   ALPHA_NOTE,
@@ -127,10 +129,14 @@ export const COLOR_COMMAND: CommandSpec = {
         reflection,
         ...(pathMm === undefined ? {} : { pathMm }),
       };
-      const fileRows = spectra.flatMap((s) => {
-        const plain = spectrumColor(s, options);
-        return uncertainty ? withColorUncertainty(plain, s, uncertainty, options, file) : plain;
-      });
+      const conditions = conditionsOf(illuminants, observers);
+      const plain = fileColorRows(spectra, conditions, pathMm, reflection);
+      const m = conditions.length;
+      const fileRows = uncertainty
+        ? spectra.flatMap((s, k) =>
+          withColorUncertainty(plain.slice(k * m, k * m + m), s, uncertainty, options, file)
+        )
+        : plain;
       const s = spectra[0]!;
       const lo = s.wavelengthNm[0]!, hi = s.wavelengthNm[s.wavelengthNm.length - 1]!;
       if (lo > 380 || hi < 780) {
@@ -138,16 +144,16 @@ export const COLOR_COMMAND: CommandSpec = {
           `crystint: ${file}: data cover ${lo}–${hi} nm only; ends extended by constant values (CIE 15)`,
         );
       }
-      rows.push(...fileRows);
+      for (const r of fileRows) rows.push(r);
     });
     const records = rows as unknown as Record<string, unknown>[];
     if (format === "json") console.log(JSON.stringify(rows, null, 2));
     else if (format === "csv") {
-      writeStdout(toCsv(records, [
+      writeCsv(records, [
         ...COLOR_KEYS,
         ...COLOR_EXTRA_KEYS,
         ...(uncertainty ? COLOR_UNCERTAINTY_COLUMNS : []),
-      ]));
+      ]);
     } else {
       const shown = records.map((r) => {
         const o: Record<string, unknown> = {};
@@ -166,3 +172,46 @@ export const COLOR_COMMAND: CommandSpec = {
     return failed > 0 ? EXIT.someFailed : EXIT.ok;
   },
 };
+
+/**
+ * The colour rows of a file's spectra, spectrum after spectrum and condition after condition
+ * (the rows `spectrumColor` gives each spectrum): spectra on one grid at one path go through one
+ * pass for all conditions (`spectraColorRows`).
+ */
+function fileColorRows(
+  spectra: Spectrum[],
+  conditions: ReturnType<typeof conditionsOf>,
+  pathMm: number | undefined,
+  reflection: Parameters<typeof transmittanceForPath>[2],
+): ColorRow[] {
+  const rows: ColorRow[] = [];
+  for (let from = 0; from < spectra.length;) {
+    const first = spectra[from]!;
+    const path = pathMm ?? first.thicknessMm ?? null;
+    let to = from + 1;
+    while (
+      to < spectra.length && sameGrid(spectra[to]!.wavelengthNm, first.wavelengthNm) &&
+      (pathMm ?? spectra[to]!.thicknessMm ?? null) === path &&
+      spectra[to]!.meta.sourceFile === first.meta.sourceFile
+    ) to++;
+    const run = spectra.slice(from, to);
+    const values = run.map((s) => transmittanceForPath(s, pathMm, reflection).values);
+    const labels = { samples: run.map((s) => s.meta.sample), pathMm: path };
+    const runRows = spectraColorRows(
+      { wavelengthNm: first.wavelengthNm, values },
+      conditions,
+      first.meta.sourceFile === undefined ? labels : { ...labels, file: first.meta.sourceFile },
+    );
+    for (const r of runRows) rows.push(r);
+    from = to;
+  }
+  return rows;
+}
+
+/** Whether two wavelength grids are the same array or hold the same values. */
+function sameGrid(a: Float64Array, b: Float64Array): boolean {
+  if (a === b) return true;
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}

@@ -1,16 +1,17 @@
 /**
- * crystint command-line entry point: dispatches to one command table per command.
+ * crystint command-line entry point: dispatches to one command table per command, loading only
+ * the table of the command that runs (`command_index.ts`).
  *
  * @module
  */
 import { runCommand, wrap } from "./_command.ts";
-import { COMMANDS } from "./commands.ts";
+import { COMMAND_INDEX } from "./command_index.ts";
 import { EXIT, log, UsageError, withFlagHint } from "./_shared.ts";
 import { OBSERVER_NOTE } from "./_options.ts";
 
 /** The main help, with the command list generated from the command tables. */
 export function mainHelp(): string {
-  const width = Math.max(...COMMANDS.map((c) => c.name.length)) + 2;
+  const width = Math.max(...COMMAND_INDEX.map((c) => c.name.length)) + 2;
   return [
     "crystint — colour, bands and dopant levels of doped crystals from their spectra",
     "",
@@ -18,7 +19,7 @@ export function mainHelp(): string {
     "  crystint <command> [options]",
     "",
     "Commands:",
-    ...COMMANDS.map((c) => `  ${c.name.padEnd(width)}${c.summary}`),
+    ...COMMAND_INDEX.map((c) => `  ${c.name.padEnd(width)}${c.summary}`),
     "",
     'Run "crystint <command> --help" for the options of a command.',
     ...wrap(OBSERVER_NOTE, 100, ""),
@@ -34,13 +35,13 @@ export async function main(args: string[]): Promise<number> {
     console.log(mainHelp());
     return name === undefined ? EXIT.usage : EXIT.ok;
   }
-  const command = COMMANDS.find((c) => c.name === name);
-  if (!command) {
+  const entry = COMMAND_INDEX.find((c) => c.name === name);
+  if (!entry) {
     log(`crystint: unknown command "${name}"\n\n${mainHelp()}`);
     return EXIT.usage;
   }
   try {
-    return await runCommand(command, rest);
+    return await runCommand(await entry.load(), rest);
   } catch (e) {
     if (e instanceof UsageError) {
       log(`crystint ${name}: ${e.message}\nRun "crystint ${name} --help" for usage.`);

@@ -5,6 +5,7 @@
  * @module
  */
 import { InputError } from "./input_error.ts";
+import type { AsciiScan } from "./ascii_scan.ts";
 
 /**
  * Decodes the bytes of a text export.
@@ -23,14 +24,7 @@ export function decodeText(bytes: Uint8Array, file: string): string {
     const body = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf
       ? bytes.subarray(3)
       : bytes;
-    if (body.includes(0)) {
-      throw new InputError(
-        "binary",
-        file,
-        undefined,
-        "File is binary (contains NUL bytes), not a text export",
-      );
-    }
+    if (body.includes(0)) throw nulError(file);
     try {
       text = new TextDecoder("utf-8", { fatal: true }).decode(body);
     } catch {
@@ -44,14 +38,49 @@ export function decodeText(bytes: Uint8Array, file: string): string {
   const tolerated = Math.max(4, text.length * 0.01);
   let control = 0;
   while (controlChar.exec(text) !== null && ++control <= tolerated);
-  if (control > tolerated) {
-    throw new InputError(
-      "binary",
-      file,
-      undefined,
-      "File is binary (control characters), not a text export",
-    );
-  }
-  if (!/\S/.test(text)) throw new InputError("empty", file, undefined, "File holds no data");
+  if (control > tolerated) throw controlError(file);
+  if (!/\S/.test(text)) throw noDataError(file);
   return text;
+}
+
+/**
+ * The checks of {@linkcode decodeText} on bytes that are 7-bit ASCII (so need no decoding): the
+ * same refusals, in the same order, as decoding them would give.
+ *
+ * @param body The bytes after any UTF-8 BOM, every one below 0x80.
+ * @param scan What `scanAscii` found in them.
+ * @throws {InputError} `empty` or `binary`, as {@linkcode decodeText}.
+ */
+export function checkAsciiText(body: Uint8Array, scan: AsciiScan, file: string): void {
+  if (scan.nul) throw nulError(file);
+  if (scan.control > Math.max(4, body.length * 0.01)) throw controlError(file);
+  // \S: anything but tab, LF, VT, FF, CR and space (found at once in any real export)
+  let visible = false;
+  for (let i = 0; i < body.length && !visible; i++) {
+    const c = body[i]!;
+    visible = c !== 32 && !(c >= 9 && c <= 13);
+  }
+  if (!visible) throw noDataError(file);
+}
+
+function nulError(file: string): InputError {
+  return new InputError(
+    "binary",
+    file,
+    undefined,
+    "File is binary (contains NUL bytes), not a text export",
+  );
+}
+
+function controlError(file: string): InputError {
+  return new InputError(
+    "binary",
+    file,
+    undefined,
+    "File is binary (control characters), not a text export",
+  );
+}
+
+function noDataError(file: string): InputError {
+  return new InputError("empty", file, undefined, "File holds no data");
 }

@@ -7,8 +7,7 @@
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { InputError } from "./input_error.ts";
 import { DEFAULT_READ_LIMITS, type ReadLimits, resolveReadLimits } from "./read_limits.ts";
-import { decodeText } from "./decode_text.ts";
-import { type ReadOptions, readSpectraFromText } from "./read_spectra.ts";
+import { type ReadOptions, readSpectraFromBytes } from "./read_spectra.ts";
 
 /** Largest file accepted by default, in bytes (see {@linkcode DEFAULT_READ_LIMITS}). */
 export const MAX_FILE_BYTES = DEFAULT_READ_LIMITS.maxBytes;
@@ -100,7 +99,5 @@ export async function readSpectrumFile(
   path: string,
   options: ReadOptions = {},
 ): Promise<Spectrum[]> {
-  // the bytes are dropped once decoded, so their memory can go before the columns are built
-  const text = decodeText(await readInputBytes(path, options.limits), path);
-  return readSpectraFromText(text, path, options);
+  return readSpectraFromBytes(await readInputBytes(path, options.limits), path, options);
 }

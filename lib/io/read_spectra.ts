@@ -5,9 +5,10 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import { decodeText } from "./decode_text.ts";
+import { checkAsciiText, decodeText } from "./decode_text.ts";
 import { readJcamp } from "./read_jcamp.ts";
-import { readTextTable, type TableReadOptions } from "./read_table.ts";
+import { plainAscii, readTextTable, type TableReadOptions } from "./read_table.ts";
+import { scanAscii } from "./ascii_scan.ts";
 import { InputError } from "./input_error.ts";
 import { resolveReadLimits } from "./read_limits.ts";
 import { type ReadOptions, spectraFromTable } from "./spectra_from_table.ts";
@@ -36,7 +37,28 @@ export function readSpectraFromBytes(
       `Cannot read file: larger than ${limits.maxBytes} bytes`,
     );
   }
+  // An ASCII table is read from its bytes (no decoded copy of the file, no string per line);
+  // the general reader, JCAMP-DX and any other text go through the decoded text.
+  const body = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf
+    ? bytes.subarray(3)
+    : bytes;
+  const scan = options.tableReader === "general" || bytes.length === 0
+    ? undefined
+    : scanAscii(body);
+  if (scan && plainAscii(scan)) {
+    checkAsciiText(body, scan, file);
+    if (!looksLikeJcamp(HEAD.decode(body.subarray(0, 2000)))) {
+      return spectraFromTable(readTextTable(body, file, { limits }), file, options);
+    }
+  }
   return readSpectraFromText(decodeText(bytes, file), file, options);
+}
+
+const HEAD = new TextDecoder();
+
+/** Whether the text opens like a JCAMP-DX file (a `##TITLE=` line in its first 2,000 characters). */
+function looksLikeJcamp(head: string): boolean {
+  return /^\s*##TITLE\s*=/im.test(head);
 }
 
 /**
@@ -52,7 +74,7 @@ export function readSpectraFromText(
   options: ReadOptions = {},
 ): Spectrum[] {
   const limits = resolveReadLimits(options.limits);
-  if (/^\s*##TITLE\s*=/im.test(text.slice(0, 2000))) {
+  if (looksLikeJcamp(text.slice(0, 2000))) {
     const spectra = readJcamp(text, file, options);
     // decadic α (A = α·d) into the natural α of the model: α = α₁₀ · ln 10
     return options.alphaBase === "10"

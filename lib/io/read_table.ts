@@ -3,7 +3,9 @@
  * preamble and `#` comments, the header row, the data rows (with their line numbers) and any
  * footer. Field splitting of quoted lines is done by csv-parse; plain numeric data lines take
  * a fast path straight from the characters into typed columns (`parse_numeric_line.ts`), with
- * the general per-cell reader judging every line the fast path declines.
+ * the general per-cell reader judging every line the fast path declines. An ASCII export may be
+ * given as its bytes: then only the lines that are not parsed by the fast path (preamble,
+ * header, footer, the first rows that locate the table) are ever turned into strings.
  *
  * @module
  */
@@ -12,8 +14,9 @@
 // deno-lint-ignore no-import-prefix
 import { parse } from "npm:csv-parse@^5.6.0/sync";
 import { InputError } from "./input_error.ts";
-import { parseNumericLine, WHITESPACE_DELIMITER } from "./parse_numeric_line.ts";
+import { parseNumericBytes, parseNumericLine, WHITESPACE_DELIMITER } from "./parse_numeric_line.ts";
 import { type ReadLimits, resolveReadLimits } from "./read_limits.ts";
+import { type AsciiScan, scanAscii } from "./ascii_scan.ts";
 import { splitMetadataLine } from "./read_metadata.ts";
 
 /** A located, numeric table read from a text export. */
@@ -47,9 +50,85 @@ export interface TableReadOptions {
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const NON_FINITE = /^[+-]?(nan|inf|infinity|∞|1\.#inf|1\.#ind)$/i;
 
+/** One line of the export: its text (made on first use for a line held as bytes). */
 interface Line {
-  text: string;
-  no: number;
+  readonly text: string;
+  readonly no: number;
+  /** The first character code (NaN for an empty line). */
+  readonly first: number;
+  /** Whether the line holds the character `code` (ASCII). */
+  has(code: number): boolean;
+  /** Parses the line by the fast path (see `parseNumericLine`). */
+  parse(delimiter: number, decimalComma: boolean, columns: Float64Array[], row: number): boolean;
+}
+
+/** A line held as text. */
+class TextLine implements Line {
+  readonly first: number;
+  constructor(readonly text: string, readonly no: number) {
+    this.first = text.charCodeAt(0);
+  }
+  has(code: number): boolean {
+    return this.text.includes(String.fromCharCode(code));
+  }
+  parse(delimiter: number, decimalComma: boolean, columns: Float64Array[], row: number): boolean {
+    return parseNumericLine(this.text, delimiter, decimalComma, columns, row);
+  }
+}
+
+const ascii = new TextDecoder();
+
+/** ASCII white space as `trim` and `\s` see it: tab, LF, VT, FF, CR and space. */
+function isBlank(code: number): boolean {
+  return code === 32 || (code >= 9 && code <= 13);
+}
+
+/** A line held as the bytes `bytes[start … end − 1]` of an ASCII export. */
+class ByteLine implements Line {
+  #text: string | undefined;
+  readonly first: number;
+  constructor(
+    readonly bytes: Uint8Array,
+    readonly start: number,
+    readonly end: number,
+    readonly no: number,
+  ) {
+    this.first = start < end ? bytes[start]! : NaN;
+  }
+  get text(): string {
+    return this.#text ??= ascii.decode(this.bytes.subarray(this.start, this.end));
+  }
+  /** The first cell, trimmed, as splitting the text would give it (a line without quotes). */
+  firstCell(delimiter: number): string {
+    const b = this.bytes;
+    let i = this.start;
+    while (i < this.end && isBlank(b[i]!)) i++;
+    let stop = i;
+    if (delimiter === WHITESPACE_DELIMITER) {
+      while (stop < this.end && !isBlank(b[stop]!)) {
+        stop++;
+      }
+    } else {
+      while (stop < this.end && b[stop] !== delimiter) stop++;
+      while (stop > i && isBlank(b[stop - 1]!)) stop--;
+    }
+    return ascii.decode(b.subarray(i, stop));
+  }
+  has(code: number): boolean {
+    const at = this.bytes.indexOf(code, this.start);
+    return at >= 0 && at < this.end;
+  }
+  parse(delimiter: number, decimalComma: boolean, columns: Float64Array[], row: number): boolean {
+    return parseNumericBytes(
+      this.bytes,
+      this.start,
+      this.end,
+      delimiter,
+      decimalComma,
+      columns,
+      row,
+    );
+  }
 }
 
 /** One split line: its cells and its 1-based line number. */
@@ -64,9 +143,31 @@ function splitLines(text: string): Line[] {
   const out: Line[] = new Array(parts.length);
   for (let i = 0; i < parts.length; i++) {
     const t = parts[i]!;
-    out[i] = { text: t.charCodeAt(0) === 0xfeff ? t.slice(1) : t, no: i + 1 };
+    out[i] = new TextLine(t.charCodeAt(0) === 0xfeff ? t.slice(1) : t, i + 1);
   }
   return out;
+}
+
+/** The lines of ASCII bytes ended by LF or CR LF (see {@linkcode plainAscii}). */
+function splitByteLines(bytes: Uint8Array): Line[] {
+  const out: Line[] = [];
+  let start = 0;
+  for (;;) {
+    const lf = bytes.indexOf(10, start);
+    const stop = lf < 0 ? bytes.length : lf;
+    const end = stop > start && bytes[stop - 1] === 13 ? stop - 1 : stop;
+    out.push(new ByteLine(bytes, start, end, out.length + 1));
+    if (lf < 0) return out;
+    start = lf + 1;
+  }
+}
+
+/**
+ * Whether scanned bytes can be read as a table without decoding: 7-bit ASCII whose only CRs end
+ * lines (CR LF); anything else (UTF-8 beyond ASCII, a BOM, old Mac line ends) is read as text.
+ */
+export function plainAscii(scan: AsciiScan): boolean {
+  return scan.ascii && !scan.loneCr;
 }
 
 function looksNumeric(line: string): boolean {
@@ -127,6 +228,9 @@ export function parseNumberCell(cell: string, decimalComma: boolean): number | u
 
 /** The first cell of a line as {@linkcode splitCells} would give it, without splitting the rest. */
 function firstCell(l: Line, delimiter: TextTable["delimiter"], file: string): string {
+  if (l instanceof ByteLine && !l.has(34)) {
+    return l.firstCell(delimiter === "whitespace" ? WHITESPACE_DELIMITER : delimiter.charCodeAt(0));
+  }
   if (delimiter === "whitespace") return l.text.trim().split(/\s+/, 1)[0] ?? "";
   if (l.text.includes('"')) return splitCells(l, delimiter, file)[0] ?? "";
   const at = l.text.indexOf(delimiter);
@@ -140,19 +244,22 @@ function firstCell(l: Line, delimiter: TextTable["delimiter"], file: string): st
  *   `malformed` for a bad row inside the table (with its line number), `too-large` past a cap.
  */
 export function readTextTable(
-  text: string,
+  text: string | Uint8Array,
   file: string,
   options: TableReadOptions = {},
 ): TextTable {
   const limits = resolveReadLimits(options.limits);
-  const all = splitLines(text);
+  if (typeof text !== "string" && !plainAscii(scanAscii(text))) {
+    throw new RangeError(`${file}: bytes that are not plain ASCII must be decoded first`);
+  }
+  const all = typeof text === "string" ? splitLines(text) : splitByteLines(text);
   // metadata lines (comments, preamble, footer), turned into fields in file order at the end
   const metadata: { line: Line; comment: boolean }[] = [];
   const addField = (line: Line) => metadata.push({ line, comment: false });
   const comments: string[] = [];
   const lines: Line[] = [];
   for (const l of all) {
-    const c0 = l.text.charCodeAt(0);
+    const c0 = l.first;
     if ((c0 >= 48 && c0 <= 57) || c0 === 45 || c0 === 43 || c0 === 46 || c0 === 34) {
       lines.push(l); // a digit, sign or point first: neither a comment nor blank (most lines)
     } else if (isComment(l.text)) {
@@ -182,7 +289,7 @@ export function readTextTable(
     for (let i = 0, seen = 0; i < lines.length && seen < 200; i++) {
       if (!looksNumeric(firstCell(lines[i]!, delimiter, file))) continue;
       seen++;
-      if (!lines[i]!.text.includes(",")) continue;
+      if (!lines[i]!.has(44)) continue; // a comma (bytes are not made into text for this)
       if (record(i).cells.some((c) => /^[+-]?\d*,\d+([eE][+-]?\d+)?$/.test(c))) {
         decimalComma = true;
         break;
@@ -267,7 +374,7 @@ export function readTextTable(
         `Table has more than ${maxRows} rows of ${width} columns; at most ${limits.maxPoints} points and ${limits.maxValues} values are read`,
       );
     }
-    if (fast && parseNumericLine(l.text, delimiterCode, decimalComma, columns, count)) {
+    if (fast && l.parse(delimiterCode, decimalComma, columns, count)) {
       rowLines.push(l.no);
       count++;
       continue;

@@ -2,6 +2,7 @@ import { describe, it } from "node:test";
 import { expect } from "expect";
 import { runCli } from "../_run_cli.ts";
 import { COMMANDS } from "../../cli/commands.ts";
+import { COMMAND_INDEX } from "../../cli/command_index.ts";
 import {
   commandOptions,
   type CommandSpec,
@@ -32,6 +33,14 @@ describe("command tables (cli/_command.ts)", () => {
     const help = mainHelp();
     for (const spec of COMMANDS) expect(help).toContain(`${spec.name}`);
     for (const spec of COMMANDS) expect(help).toContain(spec.summary);
+  });
+
+  it("the start-up index loads, for each name and summary, that very command table", async () => {
+    expect(COMMAND_INDEX.map((c) => [c.name, c.summary]))
+      .toEqual(COMMANDS.map((c) => [c.name, c.summary]));
+    for (const entry of COMMAND_INDEX) {
+      expect(await entry.load()).toBe(COMMANDS.find((c) => c.name === entry.name));
+    }
   });
 
   it("every command's help names the 2° default observer when it has --observer", () => {
