@@ -119,9 +119,9 @@ export function toCsv(rows: Record<string, unknown>[], keys: string[]): string {
 export function* csvPieces(
   rows: Record<string, unknown>[],
   keys: string[],
-  size = 1 << 20,
+  { header = true, size = 1 << 20 }: { header?: boolean; size?: number } = {},
 ): Generator<string> {
-  let piece = keys.map((k) => csvField(csvHeader(k))).join(",") + "\n";
+  let piece = header ? keys.map((k) => csvField(csvHeader(k))).join(",") + "\n" : "";
   for (const r of rows) {
     let line = csvField(r[keys[0]!]);
     for (let k = 1; k < keys.length; k++) line += "," + csvField(r[keys[k]!]);
@@ -134,9 +134,13 @@ export function* csvPieces(
   if (piece !== "") yield piece;
 }
 
-/** Writes rows as CSV to stdout piece by piece (the text of {@linkcode toCsv}). */
-export function writeCsv(rows: Record<string, unknown>[], keys: string[]): void {
-  for (const piece of csvPieces(rows, keys)) writeStdout(piece);
+/** Writes rows as CSV to stdout piece by piece (the text of {@linkcode toCsv}; header optional). */
+export function writeCsv(
+  rows: Record<string, unknown>[],
+  keys: string[],
+  options: { header?: boolean } = {},
+): void {
+  for (const piece of csvPieces(rows, keys, options)) writeStdout(piece);
 }
 
 /** Output format chosen by `--json` / `--csv`, or the terminal table. */

@@ -78,6 +78,9 @@ export const COLOR_EXTRA_KEYS = [
   "extrapolated",
 ];
 
+/** Spectra coloured and written at a time with --csv. */
+const SLICE = 1000;
+
 /** Uncertainty columns the terminal table shows. */
 const SHOWN_SD = ["LSd", "aSd", "bSd"];
 
@@ -121,6 +124,13 @@ export const COLOR_COMMAND: CommandSpec = {
     const note = surfaceLossNote(reflection, args);
     const uncertainty = uncertaintyFromArgs(args);
     const rows: ColorRow[] = [];
+    const csvKeys = [
+      ...COLOR_KEYS,
+      ...COLOR_EXTRA_KEYS,
+      ...(uncertainty ? COLOR_UNCERTAINTY_COLUMNS : []),
+    ];
+    // CSV is written as the rows are made, a slice of spectra at a time (flat memory)
+    if (format === "csv") writeCsv([], csvKeys);
     const failed = await forEachFile(args.positionals, args, (spectra, file) => {
       for (const s of spectra) note(s, pathMm);
       const options = {
@@ -130,13 +140,18 @@ export const COLOR_COMMAND: CommandSpec = {
         ...(pathMm === undefined ? {} : { pathMm }),
       };
       const conditions = conditionsOf(illuminants, observers);
-      const plain = fileColorRows(spectra, conditions, pathMm, reflection);
       const m = conditions.length;
-      const fileRows = uncertainty
-        ? spectra.flatMap((s, k) =>
-          withColorUncertainty(plain.slice(k * m, k * m + m), s, uncertainty, options, file)
-        )
-        : plain;
+      for (let from = 0; from < spectra.length; from += SLICE) {
+        const slice = spectra.slice(from, from + SLICE);
+        const plain = fileColorRows(slice, conditions, pathMm, reflection);
+        const sliceRows = uncertainty
+          ? slice.flatMap((s, k) =>
+            withColorUncertainty(plain.slice(k * m, k * m + m), s, uncertainty, options, file)
+          )
+          : plain;
+        if (format === "csv") writeCsv(sliceRows as never, csvKeys, { header: false });
+        else for (const r of sliceRows) rows.push(r);
+      }
       const s = spectra[0]!;
       const lo = s.wavelengthNm[0]!, hi = s.wavelengthNm[s.wavelengthNm.length - 1]!;
       if (lo > 380 || hi < 780) {
@@ -144,17 +159,10 @@ export const COLOR_COMMAND: CommandSpec = {
           `crystint: ${file}: data cover ${lo}–${hi} nm only; ends extended by constant values (CIE 15)`,
         );
       }
-      for (const r of fileRows) rows.push(r);
     });
     const records = rows as unknown as Record<string, unknown>[];
     if (format === "json") console.log(JSON.stringify(rows, null, 2));
-    else if (format === "csv") {
-      writeCsv(records, [
-        ...COLOR_KEYS,
-        ...COLOR_EXTRA_KEYS,
-        ...(uncertainty ? COLOR_UNCERTAINTY_COLUMNS : []),
-      ]);
-    } else {
+    else if (format === "table") {
       const shown = records.map((r) => {
         const o: Record<string, unknown> = {};
         for (const c of [...COLOR_KEYS, "srgb", ...SHOWN_SD]) {
