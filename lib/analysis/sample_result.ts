@@ -4,6 +4,7 @@
  *
  * @module
  */
+import type { StoredAxis } from "./chart_curves.ts";
 import type { ColorRow } from "../cie/spectrum_color.ts";
 import type { ColorChange } from "../cie/color_change.ts";
 import type { ThicknessSeries } from "../cie/thickness_series.ts";
@@ -112,7 +113,8 @@ export interface BandsResult {
   /** Base of `bandsAlpha`: natural logarithm (A = α·d / ln 10). */
   alphaBase?: "natural";
   /** The fitted data and model, for the charts. */
-  curve: { nm: number[]; data: number[]; model: number[] };
+  /** Data and model against wavelength; the axis as `chart_curves.ts` stores it. */
+  curve: { nm: StoredAxis; data: number[]; model: number[] };
 }
 
 /** The result for one spectrum. */
@@ -146,7 +148,8 @@ export interface SampleResult {
   /** Target verdict, when a target applies. */
   target: TargetResult | null;
   /** Transmittance at the reporting path, for the charts. */
-  plot: { nm: number[]; t: number[] };
+  /** Transmittance against wavelength; the axis as `chart_curves.ts` stores it. */
+  plot: { nm: StoredAxis; t: number[] };
   /** Dopant level from the calibration, when one applies. */
   dopant: DopantResult | null;
   /** Fitted bands, or null when the fit was not possible. */

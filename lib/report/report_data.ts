@@ -4,6 +4,7 @@
  *
  * @module
  */
+import { axisValues } from "../analysis/chart_curves.ts";
 import type { SampleResult } from "../analysis/sample_result.ts";
 import type { CalibrationSummary, ReportHeader } from "../analysis/results_document.ts";
 import { roundTo } from "../numeric/round.ts";
@@ -218,10 +219,10 @@ export function reportDetail(result: SampleResult): ReportDetail {
   return {
     sample: result.sample,
     file: fileLabel(result.file),
-    plot: result.plot,
+    plot: { nm: axisValues(result.plot.nm), t: result.plot.t },
     bands: result.bands
       ? {
-        nm: result.bands.curve.nm,
+        nm: axisValues(result.bands.curve.nm),
         model: result.bands.curve.model,
         residual: result.bands.curve.data.map((v, i) => r(v - result.bands!.curve.model[i]!, 5)),
         data: result.bands.curve.data,
