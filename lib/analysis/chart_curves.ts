@@ -17,8 +17,11 @@ const NM_DECIMALS = 2, VALUE_DECIMALS = 5;
 
 /** A wavelength axis of equal steps: `from + i·step` (nm, at storage precision), i < count. */
 export interface UniformAxis {
+  /** The first wavelength, nm. */
   from: number;
+  /** The step, nm (negative for a descending axis). */
   step: number;
+  /** The number of points. */
   count: number;
 }
 
