@@ -78,7 +78,7 @@ export const COLOR_EXTRA_KEYS = [
   "extrapolated",
 ];
 
-/** Spectra coloured and written at a time with --csv. */
+/** Spectra coloured and written at a time with --csv (our choice: a few MB of rows at most). */
 const SLICE = 1000;
 
 /** Uncertainty columns the terminal table shows. */
@@ -131,6 +131,8 @@ export const COLOR_COMMAND: CommandSpec = {
     ];
     // CSV is written as the rows are made, a slice of spectra at a time (flat memory)
     if (format === "csv") writeCsv([], csvKeys);
+    const conditions = conditionsOf(illuminants, observers);
+    const m = conditions.length;
     const failed = await forEachFile(args.positionals, args, (spectra, file) => {
       for (const s of spectra) note(s, pathMm);
       const options = {
@@ -139,8 +141,6 @@ export const COLOR_COMMAND: CommandSpec = {
         reflection,
         ...(pathMm === undefined ? {} : { pathMm }),
       };
-      const conditions = conditionsOf(illuminants, observers);
-      const m = conditions.length;
       for (let from = 0; from < spectra.length; from += SLICE) {
         const slice = spectra.slice(from, from + SLICE);
         const plain = fileColorRows(slice, conditions, pathMm, reflection);

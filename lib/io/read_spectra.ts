@@ -7,8 +7,7 @@
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import { checkAsciiText, decodeText } from "./decode_text.ts";
 import { readJcamp } from "./read_jcamp.ts";
-import { plainAscii, readTextTable, type TableReadOptions } from "./read_table.ts";
-import { scanAscii } from "./ascii_scan.ts";
+import { asciiText, readTextTable, type TableReadOptions } from "./read_table.ts";
 import { InputError } from "./input_error.ts";
 import { resolveReadLimits } from "./read_limits.ts";
 import { type ReadOptions, spectraFromTable } from "./spectra_from_table.ts";
@@ -42,13 +41,13 @@ export function readSpectraFromBytes(
   const body = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf
     ? bytes.subarray(3)
     : bytes;
-  const scan = options.tableReader === "general" || bytes.length === 0
+  const ascii = options.tableReader === "general" || bytes.length === 0
     ? undefined
-    : scanAscii(body);
-  if (scan && plainAscii(scan)) {
-    checkAsciiText(body, scan, file);
+    : asciiText(body);
+  if (ascii) {
+    checkAsciiText(body, ascii.scan, file);
     if (!looksLikeJcamp(HEAD.decode(body.subarray(0, 2000)))) {
-      return spectraFromTable(readTextTable(body, file, { limits }), file, options);
+      return spectraFromTable(readTextTable(ascii, file, { limits }), file, options);
     }
   }
   return readSpectraFromText(decodeText(bytes, file), file, options);

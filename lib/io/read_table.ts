@@ -4,7 +4,7 @@
  * footer. Field splitting of quoted lines is done by csv-parse; plain numeric data lines take
  * a fast path straight from the characters into typed columns (`parse_numeric_line.ts`), with
  * the general per-cell reader judging every line the fast path declines. An ASCII export may be
- * given as its bytes: then only the lines that are not parsed by the fast path (preamble,
+ * given as its bytes (vetted by `asciiText`): then only the lines that are not parsed by the fast path (preamble,
  * header, footer, the first rows that locate the table) are ever turned into strings.
  *
  * @module
@@ -148,7 +148,7 @@ function splitLines(text: string): Line[] {
   return out;
 }
 
-/** The lines of ASCII bytes ended by LF or CR LF (see {@linkcode plainAscii}). */
+/** The lines of ASCII bytes ended by LF or CR LF (see {@linkcode asciiText}). */
 function splitByteLines(bytes: Uint8Array): Line[] {
   const out: Line[] = [];
   let start = 0;
@@ -162,12 +162,22 @@ function splitByteLines(bytes: Uint8Array): Line[] {
   }
 }
 
+/** Bytes {@linkcode asciiText} found readable as a table without decoding, with its scan. */
+export interface AsciiText {
+  /** The export's bytes (after any leading BOM). */
+  readonly bytes: Uint8Array;
+  /** What the scan found in them (NUL, control bytes) for the checks of `decodeText`. */
+  readonly scan: AsciiScan;
+}
+
 /**
- * Whether scanned bytes can be read as a table without decoding: 7-bit ASCII whose only CRs end
- * lines (CR LF); anything else (UTF-8 beyond ASCII, a BOM, old Mac line ends) is read as text.
+ * The bytes, vetted, when they can be read as a table without decoding: 7-bit ASCII whose only
+ * CRs end lines (CR LF); undefined for anything else (UTF-8 beyond ASCII, a BOM, old Mac line
+ * ends), which is read as text.
  */
-export function plainAscii(scan: AsciiScan): boolean {
-  return scan.ascii && !scan.loneCr;
+export function asciiText(bytes: Uint8Array): AsciiText | undefined {
+  const scan = scanAscii(bytes);
+  return scan.ascii && !scan.loneCr ? { bytes, scan } : undefined;
 }
 
 function looksNumeric(line: string): boolean {
@@ -244,15 +254,12 @@ function firstCell(l: Line, delimiter: TextTable["delimiter"], file: string): st
  *   `malformed` for a bad row inside the table (with its line number), `too-large` past a cap.
  */
 export function readTextTable(
-  text: string | Uint8Array,
+  text: string | AsciiText,
   file: string,
   options: TableReadOptions = {},
 ): TextTable {
   const limits = resolveReadLimits(options.limits);
-  if (typeof text !== "string" && !plainAscii(scanAscii(text))) {
-    throw new RangeError(`${file}: bytes that are not plain ASCII must be decoded first`);
-  }
-  const all = typeof text === "string" ? splitLines(text) : splitByteLines(text);
+  const all = typeof text === "string" ? splitLines(text) : splitByteLines(text.bytes);
   // metadata lines (comments, preamble, footer), turned into fields in file order at the end
   const metadata: { line: Line; comment: boolean }[] = [];
   const addField = (line: Line) => metadata.push({ line, comment: false });
