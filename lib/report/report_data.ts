@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { axisValues } from "../analysis/chart_curves.ts";
+import type { StoredAxis } from "../analysis/chart_curves.ts";
 import type { SampleResult } from "../analysis/sample_result.ts";
 import type { CalibrationSummary, ReportHeader } from "../analysis/results_document.ts";
 import { roundTo } from "../numeric/round.ts";
@@ -50,12 +50,13 @@ export interface ReportRow {
 export interface ReportDetail {
   sample: string;
   file: string;
-  plot: { nm: number[]; t: number[] };
+  /** Transmittance; the axis as stored (from/step/count for equal steps: see `axisValues`). */
+  plot: { nm: StoredAxis; t: number[] };
+  /** The band fit; the residual is data − model, formed where it is drawn. */
   bands: {
-    nm: number[];
+    nm: StoredAxis;
     data: number[];
     model: number[];
-    residual: number[];
     ordinate: string;
     /** Stretches left out of the fit. */
     excluded?: { fromNm: number; toNm: number; reason: string }[];
@@ -219,12 +220,11 @@ export function reportDetail(result: SampleResult): ReportDetail {
   return {
     sample: result.sample,
     file: fileLabel(result.file),
-    plot: { nm: axisValues(result.plot.nm), t: result.plot.t },
+    plot: { nm: result.plot.nm, t: result.plot.t },
     bands: result.bands
       ? {
-        nm: axisValues(result.bands.curve.nm),
+        nm: result.bands.curve.nm,
         model: result.bands.curve.model,
-        residual: result.bands.curve.data.map((v, i) => r(v - result.bands!.curve.model[i]!, 5)),
         data: result.bands.curve.data,
         ordinate: result.bands.ordinate,
         excluded: result.bands.excluded.map((x) => ({

@@ -39,6 +39,15 @@ export const REPORT_SCRIPT = `
     }
   });
 
+  // the same as roundTo (lib/numeric/round.ts) and axisValues (lib/analysis/chart_curves.ts)
+  function roundTo(v, decimals) { return isFinite(v) ? Number(v.toFixed(decimals)) : NaN; }
+  function axisValues(axis) {
+    if (Array.isArray(axis)) return axis;
+    var out = [];
+    for (var i = 0; i < axis.count; i++) out.push(roundTo(axis.from + i * axis.step, 2));
+    return out;
+  }
+
   var OBS = data.xyObserver || "2";
   function locusDataset() {
     var locus = data.loci[OBS];
@@ -235,7 +244,7 @@ export const REPORT_SCRIPT = `
     document.getElementById("detail-swatch-to").style.background = row.swatchTo;
 
     var spec = [{ label: "T at " + (row.pathMm === null ? "measured path" : row.pathMm + " mm"),
-      data: d.plot.nm.map(function (x, i) { return { x: x, y: d.plot.t[i] }; }),
+      data: axisValues(d.plot.nm).map(function (x, i) { return { x: x, y: d.plot.t[i] }; }),
       showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.5 }];
     var specScales = { x: { type: "linear", title: { display: true, text: "wavelength (nm)" } },
       y: { min: 0, max: 1, title: { display: true, text: "transmittance" } } };
@@ -245,11 +254,13 @@ export const REPORT_SCRIPT = `
     bt.textContent = "";
     if (d.bands) {
       bc.parentNode.parentNode.hidden = false;
-      function pts(arr) { return d.bands.nm.map(function (x, i) { return { x: x, y: arr[i] }; }); }
+      var bandNm = axisValues(d.bands.nm);
+      var residual = d.bands.data.map(function (v, i) { return roundTo(v - d.bands.model[i], 5); });
+      function pts(arr) { return bandNm.map(function (x, i) { return { x: x, y: arr[i] }; }); }
       charts.push(new Chart(bc, { type: "scatter", data: { datasets: [
         { label: "measured " + d.bands.ordinate, data: pts(d.bands.data), showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.2 },
         { label: "fit (bands + baseline)", data: pts(d.bands.model), showLine: true, pointRadius: 0, borderColor: LAMP, borderDash: [5, 3] },
-        { label: "residual", data: pts(d.bands.residual), showLine: true, pointRadius: 0, borderColor: "#9aa5ab", yAxisID: "y2" }
+        { label: "residual", data: pts(residual), showLine: true, pointRadius: 0, borderColor: "#9aa5ab", yAxisID: "y2" }
       ] }, options: { scales: { x: { type: "linear", title: { display: true, text: "wavelength (nm)" } },
         y: { title: { display: true, text: d.bands.ordinate } },
         y2: { position: "right", title: { display: true, text: "residual" }, grid: { display: false } } },

@@ -56,6 +56,7 @@ dl.facts dt { color: var(--muted); } dl.facts dd { margin: 0; }
 footer { color: var(--muted); font-size: 12.5px; padding: 10px 40px 40px; }
 svg.plot { width: 100%; height: auto; display: block; font: 10px "Source Sans 3", "Segoe UI", system-ui, sans-serif; fill: #5d6b73; }
 svg.plot .axis { font-size: 11px; fill: var(--ink); }
+svg.plot.shared-defs { position: absolute; width: 0; height: 0; overflow: hidden; }
 figure { margin: 0; }
 .plot-box figcaption { font-size: 12px; font-weight: 600; margin: 0 0 2px; }
 .print-only, .stones { display: none; }

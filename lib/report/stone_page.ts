@@ -7,8 +7,9 @@
  */
 import { escapeHtml as e } from "./escape.ts";
 import type { ReportDetail, ReportInput, ReportRow } from "./report_data.ts";
-import { paddedRange, svgChart } from "./svg_chart.ts";
+import { paddedRange, svgChart, type SvgDefs, type SvgSeries } from "./svg_chart.ts";
 import { MARKS } from "./marks.ts";
+import { axisValues } from "../analysis/chart_curves.ts";
 
 /** Colours of the two lights and the ink (the report's own palette). */
 export const PALETTE = { day: "#2c6e73", lamp: "#b5651d", ink: "#1e2a32", other: "#7b5ea7" };
@@ -105,11 +106,30 @@ function facts(row: ReportRow, d: ReportDetail): string {
   }`;
 }
 
-function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
+/** The fixed frame of every chromaticity chart (so the locus is drawn alike on all of them). */
+const XY_FRAME = { x: [0, 0.8] as [number, number], y: [0, 0.9] as [number, number], square: true };
+
+/** The spectral locus of an observer, closed by the purple line, as a page-shared line. */
+function locusSeries(locus: { x: number[]; y: number[] }): SvgSeries {
+  return {
+    points: [...locus.x.map((x, i) => [x, locus.y[i]!] as [number, number]), [
+      locus.x[0]!,
+      locus.y[0]!,
+    ]],
+    color: PALETTE.ink,
+    kind: "line",
+    size: 1,
+    label: "spectral locus",
+    shared: true,
+  };
+}
+
+function charts(row: ReportRow, d: ReportDetail, input: ReportInput, defs?: SvgDefs): string {
   const id = `s${row.index}`;
   const out: string[] = [];
   const path = row.pathMm === null ? "measured path" : `${row.pathMm} mm`;
-  const tPoints = d.plot.nm.map((x, i) => [x, d.plot.t[i]!] as [number, number]);
+  const tNm = axisValues(d.plot.nm);
+  const tPoints = tNm.map((x, i) => [x, d.plot.t[i]!] as [number, number]);
   out.push(figure(
     `Transmittance at ${path}`,
     svgChart({
@@ -117,14 +137,15 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
       title: `transmittance of ${row.sample}`,
       xLabel: "wavelength (nm)",
       yLabel: "transmittance",
-      x: paddedRange(d.plot.nm, 0),
+      x: paddedRange(tNm, 0),
       y: [0, 1],
       series: [{ points: tPoints, color: PALETTE.ink, kind: "line" }],
-    }),
+    }, defs),
   ));
   if (d.bands) {
     const b = d.bands;
-    const pts = (arr: number[]) => b.nm.map((x, i) => [x, arr[i]!] as [number, number]);
+    const bNm = axisValues(b.nm);
+    const pts = (arr: number[]) => bNm.map((x, i) => [x, arr[i]!] as [number, number]);
     const excluded = b.excluded ?? [];
     out.push(figure(
       "Absorption bands (fit in wavenumber)",
@@ -133,7 +154,7 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
         title: `band fit of ${row.sample}`,
         xLabel: "wavelength (nm)",
         yLabel: b.ordinate,
-        x: paddedRange(b.nm, 0),
+        x: paddedRange(bNm, 0),
         y: paddedRange([...b.data, ...b.model]),
         spans: excluded.map((x) => ({ from: x.fromNm, to: x.toNm })),
         series: [
@@ -146,7 +167,7 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
             label: "fit (bands + baseline)",
           },
         ],
-      }) + (excluded.length
+      }, defs) + (excluded.length
         ? `<p class="legend">grey: left out of the fit — ${
           e(excluded.map((x) => `${n(x.fromNm, 0)}–${n(x.toNm, 0)} nm (${x.reason})`).join("; "))
         }</p>`
@@ -163,22 +184,9 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
       title: `chromaticity of ${row.sample}`,
       xLabel: obs === "10" ? "x₁₀" : "x",
       yLabel: obs === "10" ? "y₁₀" : "y",
-      x: [0, 0.8],
-      y: [0, 0.9],
-      square: true,
+      ...XY_FRAME,
       series: [
-        ...(locus
-          ? [{
-            points: [...locus.x.map((x, i) => [x, locus.y[i]!] as [number, number]), [
-              locus.x[0]!,
-              locus.y[0]!,
-            ] as [number, number]],
-            color: PALETTE.ink,
-            kind: "line" as const,
-            size: 1,
-            label: "spectral locus",
-          }]
-          : []),
+        ...(locus ? [locusSeries(locus)] : []),
         ...xy.map((p) => ({
           points: [[p.wx, p.wy]] as [number, number][],
           color: "#9aa5ab",
@@ -193,7 +201,7 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
           label: `under ${p.illuminant}`,
         })),
       ],
-    }) + `<p class="legend">grey dots: the illuminants' whites</p>`,
+    }, defs) + `<p class="legend">grey dots: the illuminants' whites</p>`,
   ));
   const ellipses = [
     { points: d.ellipseFrom, color: PALETTE.day, light: row.from },
@@ -232,7 +240,7 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput): string {
           ...(i === 0 ? { label: "95 % region" } : {}),
         })),
       ],
-    }) + (ellipses.length
+    }, defs) + (ellipses.length
       ? `<p class="legend">dashed: the 95 % coverage ellipse of (a*, b*) under each light; semi-axes ${
         e(
           ellipses.map((x) =>
@@ -271,12 +279,17 @@ function bandTable(d: ReportDetail): string {
 }
 
 /** The printed page of one stone. */
-export function renderStonePage(row: ReportRow, d: ReportDetail, input: ReportInput): string {
+export function renderStonePage(
+  row: ReportRow,
+  d: ReportDetail,
+  input: ReportInput,
+  defs?: SvgDefs,
+): string {
   return `<section class="stone" id="stone-${row.index}" data-index="${row.index}">
 <h2 class="stone-name">${e(row.sample)} <small>${e(d.file)}</small></h2>
 <div class="stone-top"><div class="lights">${swatches(d)}</div>${numbers(d)}</div>
 ${facts(row, d)}
-${charts(row, d, input)}
+${charts(row, d, input, defs)}
 ${bandTable(d)}
 </section>`;
 }

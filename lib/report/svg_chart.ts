@@ -23,6 +23,8 @@ export interface SvgSeries {
   size?: number;
   /** Axis the series uses: the left one (default) or a second one on the right. */
   axis?: "left" | "right";
+  /** A line drawn alike on many charts (the spectral locus): shared through {@linkcode SvgDefs}. */
+  shared?: boolean;
 }
 
 /** A whole plot. */
@@ -75,18 +77,48 @@ export function paddedRange(values: number[], pad = 0.05): [number, number] {
   return [lo - d, hi + d];
 }
 
-/** At most `n` points of a line, evenly picked (the printed line cannot show more). */
-export function thinPoints(points: [number, number][], n = 200): [number, number][] {
-  if (points.length <= n) return points;
-  const out: [number, number][] = [];
-  for (let i = 0; i < n; i++) out.push(points[Math.round((i * (points.length - 1)) / (n - 1))]!);
-  return out;
+/** Largest distance (px) a drawn line may stray from the data: a sixth of the thinnest stroke. */
+const LINE_TOLERANCE_PX = 0.2;
+
+/**
+ * The points of a line that matter at a drawing tolerance (Ramer 1972; Douglas & Peucker
+ * 1973): every dropped point lies within `tolerance` of the kept line, so the drawn line is the
+ * same to that tolerance. Points are in drawing units (px); the first and last are always kept.
+ */
+export function simplifyLine(points: [number, number][], tolerance: number): [number, number][] {
+  const n = points.length;
+  if (n <= 2) return points;
+  const keep = new Uint8Array(n);
+  keep[0] = keep[n - 1] = 1;
+  const stack: number[] = [0, n - 1];
+  while (stack.length) {
+    const last = stack.pop()!, first = stack.pop()!;
+    const [ax, ay] = points[first]!, [bx, by] = points[last]!;
+    const dx = bx - ax, dy = by - ay, length2 = dx * dx + dy * dy;
+    let worst = -1, worstAt = -1;
+    for (let i = first + 1; i < last; i++) {
+      const [px, py] = points[i]!;
+      // distance to the segment (to the end point when the foot falls outside it)
+      let t = length2 > 0 ? ((px - ax) * dx + (py - ay) * dy) / length2 : 0;
+      t = t < 0 ? 0 : t > 1 ? 1 : t;
+      const ex = ax + t * dx - px, ey = ay + t * dy - py, d2 = ex * ex + ey * ey;
+      if (d2 > worst) {
+        worst = d2;
+        worstAt = i;
+      }
+    }
+    if (worstAt >= 0 && worst > tolerance * tolerance) {
+      keep[worstAt] = 1;
+      stack.push(first, worstAt, worstAt, last);
+    }
+  }
+  return points.filter((_, i) => keep[i] === 1);
 }
 
 const f = (v: number) => (Math.round(v * 10) / 10).toString();
 
-/** Renders a plot as an SVG element (viewBox-sized, scales to its box). */
-export function svgChart(plot: SvgPlot): string {
+/** Drawing frame of a plot: inner size and the data → px maps. */
+function frame(plot: SvgPlot) {
   const [x0, x1] = plot.x, [y0, y1] = plot.y;
   let iw = W - PAD.left - PAD.right - (plot.y2 ? 34 : 0), ih = H - PAD.top - PAD.bottom;
   if (plot.square) {
@@ -101,6 +133,72 @@ export function svgChart(plot: SvgPlot): string {
     const [a, b] = right && plot.y2 ? plot.y2 : [y0, y1];
     return top + ih - ((v - a) / (b - a)) * ih;
   };
+  return { x0, x1, y0, y1, iw, ih, left, top, sx, sy };
+}
+
+/** A line series as a polyline, simplified to the drawing tolerance; "" with < 2 points. */
+function polyline(s: SvgSeries, geometry: ReturnType<typeof frame>): string {
+  const right = s.axis === "right";
+  const pts = s.points.filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));
+  if (pts.length < 2) return "";
+  const { sx, sy } = geometry;
+  return `<polyline fill="none" stroke="${e(s.color)}" stroke-width="${s.size ?? 1.4}"${
+    s.dash ? ` stroke-dasharray="${e(s.dash)}"` : ""
+  } points="${
+    simplifyLine(pts.map(([a, b]) => [sx(a), sy(b, right)]), LINE_TOLERANCE_PX)
+      .map(([X, Y]) => `${f(X)},${f(Y)}`).join(" ")
+  }"/>`;
+}
+
+/**
+ * Markup drawn alike on many charts of one page (a chart's frame, the spectral locus): each
+ * chart holds a placeholder, and {@linkcode SvgDefs.resolve} then defines what occurs more than
+ * once a single time on the page and draws it by reference (`<use>`), inlining the rest.
+ */
+export class SvgDefs {
+  #ids = new Map<string, number>();
+  #markup: string[] = [];
+  /** A placeholder for the markup (a comment: escaped text can never contain one). */
+  share(markup: string): string {
+    let id = this.#ids.get(markup);
+    if (id === undefined) {
+      id = this.#markup.length;
+      this.#ids.set(markup, id);
+      this.#markup.push(markup);
+    }
+    return `<!--svg-def:${id}-->`;
+  }
+  /**
+   * The text with its placeholders filled, and the definitions for one SVG of no size placed
+   * on the page before them ("" when nothing repeats).
+   */
+  resolve(text: string): { text: string; defs: string } {
+    const uses = new Uint32Array(this.#markup.length);
+    const pattern = /<!--svg-def:(\d+)-->/g;
+    for (const m of text.matchAll(pattern)) uses[Number(m[1])]!++;
+    const filled = text.replace(pattern, (_, id: string) => {
+      const k = Number(id);
+      return uses[k]! > 1 ? `<use href="#svg-def-${k}"/>` : this.#markup[k]!;
+    });
+    const shared = this.#markup.map((m, k) => uses[k]! > 1 ? `<g id="svg-def-${k}">${m}</g>` : "")
+      .join("");
+    return {
+      text: filled,
+      defs: shared
+        ? `<svg class="plot shared-defs" aria-hidden="true" focusable="false" ` +
+          `xmlns="http://www.w3.org/2000/svg"><defs>${shared}</defs></svg>`
+        : "",
+    };
+  }
+}
+
+/**
+ * Renders a plot as an SVG element (viewBox-sized, scales to its box). With `defs`, the frame
+ * (box, grid, ticks, axis titles) and the shared lines go through it, to be drawn once per page.
+ */
+export function svgChart(plot: SvgPlot, defs?: SvgDefs): string {
+  const geometry = frame(plot);
+  const { x0, x1, y0, y1, iw, ih, left, top, sx, sy } = geometry;
   const parts: string[] = [];
   parts.push(
     `<rect x="${left}" y="${top}" width="${f(iw)}" height="${
@@ -158,14 +256,9 @@ export function svgChart(plot: SvgPlot): string {
   for (const s of plot.series) {
     const right = s.axis === "right";
     const pts = s.points.filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));
-    if (s.kind === "line" && pts.length > 1) {
-      body.push(
-        `<polyline fill="none" stroke="${e(s.color)}" stroke-width="${s.size ?? 1.4}"${
-          s.dash ? ` stroke-dasharray="${e(s.dash)}"` : ""
-        } points="${
-          thinPoints(pts).map(([a, b]) => `${f(sx(a))},${f(sy(b, right))}`).join(" ")
-        }"/>`,
-      );
+    if (s.kind === "line") {
+      const line = polyline(s, geometry);
+      body.push(s.shared && defs && line ? defs.share(line) : line);
     } else if (s.kind === "points") {
       for (const [a, b] of pts) {
         body.push(
@@ -209,7 +302,9 @@ export function svgChart(plot: SvgPlot): string {
   }
   return `<svg class="plot" viewBox="0 0 ${W} ${H}" role="img" aria-label="${
     e(plot.title)
-  }" xmlns="http://www.w3.org/2000/svg"><defs>${clip}</defs>${parts.join("")}` +
+  }" xmlns="http://www.w3.org/2000/svg"><defs>${clip}</defs>${
+    defs ? defs.share(parts.join("")) : parts.join("")
+  }` +
     `<g clip-path="url(#clip-${e(plot.id)})">${body.join("")}</g>${legend.join("")}</svg>`;
 }
 

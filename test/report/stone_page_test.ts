@@ -50,7 +50,6 @@ const detail: ReportDetail = {
     nm: [300, 400, 500, 600, 700, 800],
     data: [1, 0.8, 0.5, 0.9, 0.3, 0.2],
     model: [1, 0.8, 0.5, 0.9, 0.3, 0.2],
-    residual: [0, 0, 0, 0, 0, 0],
     ordinate: "absorbance",
     excluded: [
       { fromNm: 300, toNm: 350, reason: "photometric floor" },
@@ -106,7 +105,9 @@ describe("stone page with uncertainties", () => {
     const lines = [...ab.matchAll(/<polyline[^>]*stroke-dasharray="3 2" points="([^"]+)"/g)];
     expect(lines.length).toBe(1);
     const pts = lines[0]![1]!.split(" ");
-    expect(pts.length).toBe(ellipse.length);
+    // simplified to the drawing tolerance: fewer vertices, still closed
+    expect(pts.length).toBeGreaterThan(3);
+    expect(pts.length).toBeLessThanOrEqual(ellipse.length);
     expect(pts[0]).toBe(pts[pts.length - 1]);
     expect(ab).toContain("95 % coverage ellipse");
     // semi-axes k·√λ of the covariance's eigenvalues, k² = −2 ln 0.05 (JCGM 102:2011 §6.5)
