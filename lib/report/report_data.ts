@@ -10,6 +10,7 @@ import type { CalibrationSummary, ReportHeader } from "../analysis/results_docum
 import { roundTo } from "../numeric/round.ts";
 import { spectralLocus } from "../cie/dominant_wavelength.ts";
 import { coverageEllipse } from "./ellipse.ts";
+import { packCurve, type PackedCurve } from "./packed_curve.ts";
 
 /** One line of the summary table. */
 export interface ReportRow {
@@ -51,12 +52,12 @@ export interface ReportDetail {
   sample: string;
   file: string;
   /** Transmittance; the axis as stored (from/step/count for equal steps: see `axisValues`). */
-  plot: { nm: StoredAxis; t: number[] };
+  plot: { nm: StoredAxis; t: PackedCurve | number[] };
   /** The band fit; the residual is data − model, formed where it is drawn. */
   bands: {
     nm: StoredAxis;
-    data: number[];
-    model: number[];
+    data: PackedCurve | number[];
+    model: PackedCurve | number[];
     ordinate: string;
     /** Stretches left out of the fit. */
     excluded?: { fromNm: number; toNm: number; reason: string }[];
@@ -220,12 +221,12 @@ export function reportDetail(result: SampleResult): ReportDetail {
   return {
     sample: result.sample,
     file: fileLabel(result.file),
-    plot: { nm: result.plot.nm, t: result.plot.t },
+    plot: { nm: result.plot.nm, t: packCurve(result.plot.t) },
     bands: result.bands
       ? {
         nm: result.bands.curve.nm,
-        model: result.bands.curve.model,
-        data: result.bands.curve.data,
+        model: packCurve(result.bands.curve.model),
+        data: packCurve(result.bands.curve.data),
         ordinate: result.bands.ordinate,
         excluded: result.bands.excluded.map((x) => ({
           fromNm: r(x.fromNm, 1),

@@ -39,7 +39,14 @@ export const REPORT_SCRIPT = `
     }
   });
 
-  // the same as roundTo (lib/numeric/round.ts) and axisValues (lib/analysis/chart_curves.ts)
+  // the same as roundTo (lib/numeric/round.ts), axisValues (lib/analysis/chart_curves.ts) and
+  // curveValues (lib/report/packed_curve.ts)
+  function curveValues(c) {
+    if (Array.isArray(c)) return c;
+    var out = [], k = 0;
+    for (var i = 0; i < c.d.length; i++) { k += c.d[i]; out.push(k / c.q); }
+    return out;
+  }
   function roundTo(v, decimals) { return isFinite(v) ? Number(v.toFixed(decimals)) : NaN; }
   function axisValues(axis) {
     if (Array.isArray(axis)) return axis;
@@ -129,6 +136,30 @@ export const REPORT_SCRIPT = `
 
   // Summary table sorting.
   var table = document.getElementById("summary");
+
+  // A long table shows one page of the rows the filter leaves, in the sorted order.
+  var PAGE = table ? Number(table.getAttribute("data-page-rows")) || 0 : 0, page = 0;
+  var prevPage = document.getElementById("page-prev"), nextPage = document.getElementById("page-next");
+  function paginate() {
+    if (!PAGE) return;
+    var rows = table.tBodies[0].rows, n = 0, k = 0, i;
+    for (i = 0; i < rows.length; i++) if (!rows[i].hidden) n++;
+    var pages = Math.max(1, Math.ceil(n / PAGE));
+    if (page > pages - 1) page = pages - 1;
+    var lo = page * PAGE, hi = lo + PAGE;
+    for (i = 0; i < rows.length; i++) {
+      if (rows[i].hidden) { rows[i].classList.remove("off-page"); continue; }
+      rows[i].classList.toggle("off-page", k < lo || k >= hi);
+      k++;
+    }
+    text("page-info", n ? "rows " + (lo + 1) + "–" + Math.min(hi, n) + " of " + n : "no rows");
+    prevPage.disabled = page === 0;
+    nextPage.disabled = page >= pages - 1;
+  }
+  if (PAGE) {
+    prevPage.addEventListener("click", function () { page--; paginate(); });
+    nextPage.addEventListener("click", function () { page++; paginate(); });
+  }
   if (table) {
     table.querySelectorAll("th[data-key]").forEach(function (th) {
       th.addEventListener("click", function () {
@@ -146,6 +177,8 @@ export const REPORT_SCRIPT = `
           return dir === "ascending" ? r : -r;
         });
         rows.forEach(function (r) { body.appendChild(r); });
+        page = 0;
+        paginate();
       });
     });
   }
@@ -163,6 +196,8 @@ export const REPORT_SCRIPT = `
       });
       var c = document.getElementById("filter-count");
       if (c) c.textContent = shown + " of " + table.tBodies[0].rows.length + " shown";
+      page = 0;
+      paginate();
     });
   }
 
@@ -244,7 +279,7 @@ export const REPORT_SCRIPT = `
     document.getElementById("detail-swatch-to").style.background = row.swatchTo;
 
     var spec = [{ label: "T at " + (row.pathMm === null ? "measured path" : row.pathMm + " mm"),
-      data: axisValues(d.plot.nm).map(function (x, i) { return { x: x, y: d.plot.t[i] }; }),
+      data: (function (t) { return axisValues(d.plot.nm).map(function (x, i) { return { x: x, y: t[i] }; }); })(curveValues(d.plot.t)),
       showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.5 }];
     var specScales = { x: { type: "linear", title: { display: true, text: "wavelength (nm)" } },
       y: { min: 0, max: 1, title: { display: true, text: "transmittance" } } };
@@ -255,11 +290,12 @@ export const REPORT_SCRIPT = `
     if (d.bands) {
       bc.parentNode.parentNode.hidden = false;
       var bandNm = axisValues(d.bands.nm);
-      var residual = d.bands.data.map(function (v, i) { return roundTo(v - d.bands.model[i], 5); });
+      var bandData = curveValues(d.bands.data), bandModel = curveValues(d.bands.model);
+      var residual = bandData.map(function (v, i) { return roundTo(v - bandModel[i], 5); });
       function pts(arr) { return bandNm.map(function (x, i) { return { x: x, y: arr[i] }; }); }
       charts.push(new Chart(bc, { type: "scatter", data: { datasets: [
-        { label: "measured " + d.bands.ordinate, data: pts(d.bands.data), showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.2 },
-        { label: "fit (bands + baseline)", data: pts(d.bands.model), showLine: true, pointRadius: 0, borderColor: LAMP, borderDash: [5, 3] },
+        { label: "measured " + d.bands.ordinate, data: pts(bandData), showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.2 },
+        { label: "fit (bands + baseline)", data: pts(bandModel), showLine: true, pointRadius: 0, borderColor: LAMP, borderDash: [5, 3] },
         { label: "residual", data: pts(residual), showLine: true, pointRadius: 0, borderColor: "#9aa5ab", yAxisID: "y2" }
       ] }, options: { scales: { x: { type: "linear", title: { display: true, text: "wavelength (nm)" } },
         y: { title: { display: true, text: d.bands.ordinate } },

@@ -29,6 +29,8 @@ h3 { font-size: 15px; margin: 0 0 6px; }
 .tools input { font: inherit; padding: 3px 8px; border: 1px solid var(--rule); border-radius: 4px; width: 16em; max-width: 60vw; background: #fff; }
 .hint, .legend { color: var(--muted); font-size: 12.5px; margin: 6px 0 0; }
 .table-box { overflow-x: auto; max-width: 100%; }
+@media screen { tr.off-page { display: none; } }
+.pager { white-space: nowrap; } .pager button { font: inherit; }
 table.summary { border-collapse: collapse; width: 100%; font-variant-numeric: tabular-nums; font-size: 13.5px; }
 table.summary th { text-align: left; font-weight: 600; color: var(--muted); border-bottom: 2px solid var(--rule);
   padding: 6px 8px; cursor: pointer; white-space: nowrap; user-select: none; }

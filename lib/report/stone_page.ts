@@ -10,6 +10,7 @@ import type { ReportDetail, ReportInput, ReportRow } from "./report_data.ts";
 import { paddedRange, svgChart, type SvgDefs, type SvgSeries } from "./svg_chart.ts";
 import { MARKS } from "./marks.ts";
 import { axisValues } from "../analysis/chart_curves.ts";
+import { curveValues } from "./packed_curve.ts";
 
 /** Colours of the two lights and the ink (the report's own palette). */
 export const PALETTE = { day: "#2c6e73", lamp: "#b5651d", ink: "#1e2a32", other: "#7b5ea7" };
@@ -34,9 +35,8 @@ function swatches(d: ReportDetail): string {
     `<figure class="light"><span class="swatch" style="background:${e(c.srgb)}"></span>` +
     `<figcaption>${e(c.illuminant)} · ${e(c.observer)}°${
       c.outOfGamut
-        ? ` <span class="mark" title="${
-          e(MARKS.outOfGamut.text)
-        }">${MARKS.outOfGamut.symbol}</span>`
+        // a printed page has no hover: the legend just below explains the mark
+        ? ` <span class="mark">${MARKS.outOfGamut.symbol}</span>`
         : ""
     }</figcaption></figure>`
   ).join("") + (d.color.some((c) =>
@@ -129,7 +129,8 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput, defs?: SvgD
   const out: string[] = [];
   const path = row.pathMm === null ? "measured path" : `${row.pathMm} mm`;
   const tNm = axisValues(d.plot.nm);
-  const tPoints = tNm.map((x, i) => [x, d.plot.t[i]!] as [number, number]);
+  const t = curveValues(d.plot.t);
+  const tPoints = tNm.map((x, i) => [x, t[i]!] as [number, number]);
   out.push(figure(
     `Transmittance at ${path}`,
     svgChart({
@@ -144,7 +145,7 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput, defs?: SvgD
   ));
   if (d.bands) {
     const b = d.bands;
-    const bNm = axisValues(b.nm);
+    const bNm = axisValues(b.nm), data = curveValues(b.data), model = curveValues(b.model);
     const pts = (arr: number[]) => bNm.map((x, i) => [x, arr[i]!] as [number, number]);
     const excluded = b.excluded ?? [];
     out.push(figure(
@@ -155,12 +156,12 @@ function charts(row: ReportRow, d: ReportDetail, input: ReportInput, defs?: SvgD
         xLabel: "wavelength (nm)",
         yLabel: b.ordinate,
         x: paddedRange(bNm, 0),
-        y: paddedRange([...b.data, ...b.model]),
+        y: paddedRange([...data, ...model]),
         spans: excluded.map((x) => ({ from: x.fromNm, to: x.toNm })),
         series: [
-          { points: pts(b.data), color: PALETTE.ink, kind: "line", label: `measured`, size: 1.2 },
+          { points: pts(data), color: PALETTE.ink, kind: "line", label: `measured`, size: 1.2 },
           {
-            points: pts(b.model),
+            points: pts(model),
             color: PALETTE.lamp,
             kind: "line",
             dash: "5 3",

@@ -136,18 +136,41 @@ function frame(plot: SvgPlot) {
   return { x0, x1, y0, y1, iw, ih, left, top, sx, sy };
 }
 
-/** A line series as a polyline, simplified to the drawing tolerance; "" with < 2 points. */
+/** A line series as a path, simplified to the drawing tolerance; "" with < 2 points. */
 function polyline(s: SvgSeries, geometry: ReturnType<typeof frame>): string {
   const right = s.axis === "right";
   const pts = s.points.filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));
   if (pts.length < 2) return "";
   const { sx, sy } = geometry;
-  return `<polyline fill="none" stroke="${e(s.color)}" stroke-width="${s.size ?? 1.4}"${
+  const kept = simplifyLine(pts.map(([a, b]) => [sx(a), sy(b, right)]), LINE_TOLERANCE_PX);
+  return `<path fill="none" stroke="${e(s.color)}" stroke-width="${s.size ?? 1.4}"${
     s.dash ? ` stroke-dasharray="${e(s.dash)}"` : ""
-  } points="${
-    simplifyLine(pts.map(([a, b]) => [sx(a), sy(b, right)]), LINE_TOLERANCE_PX)
-      .map(([X, Y]) => `${f(X)},${f(Y)}`).join(" ")
-  }"/>`;
+  } d="${pathData(kept)}"/>`;
+}
+
+/**
+ * SVG path data through the points: an absolute move, then relative line steps between the
+ * points rounded to 0.1 px (steps of rounded positions, so no rounding error accumulates).
+ */
+export function pathData(points: [number, number][]): string {
+  const tenths = points.map(([x, y]) => [Math.round(x * 10), Math.round(y * 10)] as const);
+  const [x0, y0] = tenths[0]!;
+  let d = `M${tenthText(x0)} ${tenthText(y0)}l`;
+  for (let i = 1; i < tenths.length; i++) {
+    const dx = tenths[i]![0] - tenths[i - 1]![0], dy = tenths[i]![1] - tenths[i - 1]![1];
+    const a = tenthText(dx), b = tenthText(dy);
+    // a number needs a separator before it unless its sign (or the command letter) is one
+    d += (i > 1 && a[0] !== "-" ? " " : "") + a + (b[0] === "-" ? "" : " ") + b;
+  }
+  return d;
+}
+
+/** A count of tenths as the shortest decimal text (12 → "1.2", −3 → "-.3", 40 → "4"). */
+function tenthText(tenths: number): string {
+  if (tenths === 0) return "0";
+  const sign = tenths < 0 ? "-" : "", v = Math.abs(tenths);
+  const whole = Math.floor(v / 10), frac = v % 10;
+  return sign + (frac === 0 ? String(whole) : `${whole === 0 ? "" : whole}.${frac}`);
 }
 
 /**
@@ -199,42 +222,46 @@ export class SvgDefs {
 export function svgChart(plot: SvgPlot, defs?: SvgDefs): string {
   const geometry = frame(plot);
   const { x0, x1, y0, y1, iw, ih, left, top, sx, sy } = geometry;
-  const parts: string[] = [];
-  parts.push(
+  // the frame in two parts, box and x axis, and y axes, each shared on its own (charts of one
+  // wavelength range share the first even when their y ranges differ)
+  const xPart: string[] = [], yPart: string[] = [];
+  xPart.push(
     `<rect x="${left}" y="${top}" width="${f(iw)}" height="${
       f(ih)
     }" fill="none" stroke="#c9c1b0"/>`,
   );
   for (const t of niceTicks(x0, x1)) {
     const X = f(sx(t));
-    parts.push(
+    xPart.push(
       `<line x1="${X}" x2="${X}" y1="${top}" y2="${f(top + ih)}" stroke="#ece6da"/>` +
         `<text x="${X}" y="${f(top + ih + 13)}" text-anchor="middle">${e(tickText(t))}</text>`,
     );
   }
   for (const t of niceTicks(y0, y1)) {
     const Y = f(sy(t));
-    parts.push(
+    yPart.push(
       `<line x1="${left}" x2="${f(left + iw)}" y1="${Y}" y2="${Y}" stroke="#ece6da"/>` +
         `<text x="${left - 4}" y="${f(sy(t) + 3.5)}" text-anchor="end">${e(tickText(t))}</text>`,
     );
   }
   if (plot.y2) {
     for (const t of niceTicks(plot.y2[0], plot.y2[1], 4)) {
-      parts.push(
+      yPart.push(
         `<text x="${f(left + iw + 4)}" y="${f(sy(t, true) + 3.5)}">${e(tickText(t))}</text>`,
       );
     }
-    parts.push(
+    yPart.push(
       `<text transform="translate(${f(left + iw + 44)} ${
         f(top + ih / 2)
       }) rotate(90)" text-anchor="middle">${e(plot.y2Label ?? "")}</text>`,
     );
   }
-  parts.push(
+  xPart.push(
     `<text x="${f(left + iw / 2)}" y="${f(top + ih + 27)}" text-anchor="middle" class="axis">${
       e(plot.xLabel)
     }</text>`,
+  );
+  yPart.push(
     `<text transform="translate(11 ${
       f(top + ih / 2)
     }) rotate(-90)" text-anchor="middle" class="axis">${e(plot.yLabel)}</text>`,
@@ -303,7 +330,7 @@ export function svgChart(plot: SvgPlot, defs?: SvgDefs): string {
   return `<svg class="plot" viewBox="0 0 ${W} ${H}" role="img" aria-label="${
     e(plot.title)
   }" xmlns="http://www.w3.org/2000/svg"><defs>${clip}</defs>${
-    defs ? defs.share(parts.join("")) : parts.join("")
+    [xPart, yPart].map((part) => defs ? defs.share(part.join("")) : part.join("")).join("")
   }` +
     `<g clip-path="url(#clip-${e(plot.id)})">${body.join("")}</g>${legend.join("")}</svg>`;
 }

@@ -3,6 +3,7 @@
 // ellipse), and the report re-renders from results.json alone.
 import { describe, it } from "node:test";
 import { expect } from "expect";
+import { pathVertices } from "../report/_svg_path.ts";
 import { parse } from "csv-parse/sync";
 import { makeLot, runCli } from "../_run_cli.ts";
 import { readSpectrumFile } from "../../lib/io/read_file.ts";
@@ -168,11 +169,11 @@ describe("uncertainties in a batch", () => {
       );
       // two dashed polylines (one per light), each the closed 48-segment ellipse drawn to the
       // printing tolerance (so at most its 49 vertices)
-      const ellipses = [...ab.matchAll(/<polyline[^>]*stroke-dasharray="3 2" points="([^"]+)"/g)];
+      const ellipses = [...ab.matchAll(/<path[^>]*stroke-dasharray="3 2" d="([^"]+)"/g)];
       expect(ellipses.length).toBe(2);
-      const vertices = ellipses[0]![1]!.split(" ");
+      const vertices = pathVertices(ellipses[0]![1]!);
       expect(vertices.length).toBeLessThanOrEqual(49);
-      expect(vertices[0]).toBe(vertices[vertices.length - 1]);
+      expect(vertices[0]).toEqual(vertices[vertices.length - 1]);
       // the ellipse is JCGM 102's from the a*, b* block of the from-light's covariance
       const u = s.uncertainty!.rows.find((x) => x.illuminant === s.change.from)!;
       const m = u.labCovariance;

@@ -326,5 +326,78 @@ describe(
         expect(problems).toEqual([]);
       });
     });
+
+    it("a long lot: the table shows pages of 250 rows, the filter and the sort act on all rows, print shows all", async () => {
+      // 620 samples: three stones' results repeated under new names (the page is built from
+      // results.json alone, so this is the page a 620-stone batch writes)
+      const { html } = await lotReport(3, "");
+      const dir = html.replace(/\/index\.html$/, "");
+      const doc = JSON.parse(await Deno.readTextFile(`${dir}/results.json`));
+      const base = doc.samples as { sample: string; file: string }[];
+      doc.samples = Array.from({ length: 620 }, (_, i) => ({
+        ...structuredClone(base[i % 3]!),
+        sample: `long-${String(i).padStart(3, "0")}`,
+        file: `long-${String(i).padStart(3, "0")}.csv`,
+      }));
+      const long = await Deno.makeTempDir();
+      await Deno.writeTextFile(`${long}/results.json`, JSON.stringify(doc));
+      const r = await runCli("report", `${long}/results.json`, "--out", `${long}/out`);
+      expect(r.code).toBe(0);
+      await withPage(`${long}/out/index.html`, async (page, problems) => {
+        const state = () =>
+          page.evaluate(() => {
+            const rows = [...document.querySelectorAll<HTMLTableRowElement>("#summary tbody tr")];
+            const seen = rows.filter((tr) => getComputedStyle(tr).display !== "none");
+            return {
+              rows: rows.length,
+              seen: seen.map((tr) => tr.cells[0]!.textContent!.trim()),
+              info: document.getElementById("page-info")!.textContent,
+              prev: (document.getElementById("page-prev") as HTMLButtonElement).disabled,
+              next: (document.getElementById("page-next") as HTMLButtonElement).disabled,
+            };
+          });
+        let s = await state();
+        expect(s.rows).toBe(620);
+        expect(s.seen.length).toBe(250);
+        expect(s.seen[0]).toBe("long-000");
+        expect(s.info).toBe("rows 1–250 of 620");
+        expect([s.prev, s.next]).toEqual([true, false]);
+        await page.click("#page-next");
+        await page.click("#page-next");
+        s = await state();
+        expect(s.seen.length).toBe(120);
+        expect(s.seen[0]).toBe("long-500");
+        expect(s.info).toBe("rows 501–620 of 620");
+        expect([s.prev, s.next]).toEqual([false, true]);
+        // the filter finds rows on any page and starts again at the first page
+        await page.evaluate(() => {
+          const box = document.getElementById("filter") as HTMLInputElement;
+          box.value = "long-61";
+          box.dispatchEvent(new Event("input"));
+        });
+        s = await state();
+        expect(s.seen).toEqual(Array.from({ length: 10 }, (_, i) => `long-61${i}`));
+        expect(s.info).toBe("rows 1–10 of 10");
+        // sorting by sample, descending: the first page starts with the last name
+        await page.evaluate(() => {
+          const box = document.getElementById("filter") as HTMLInputElement;
+          box.value = "";
+          box.dispatchEvent(new Event("input"));
+        });
+        await page.click('th[data-key="sample"]');
+        await page.click('th[data-key="sample"]');
+        s = await state();
+        expect(s.seen.length).toBe(250);
+        expect(s.seen[0]).toBe("long-619");
+        // print media shows every row
+        await page.emulateMediaType("print");
+        const printed = await page.evaluate(() =>
+          [...document.querySelectorAll<HTMLTableRowElement>("#summary tbody tr")]
+            .filter((tr) => getComputedStyle(tr).display !== "none").length
+        );
+        expect(printed).toBe(620);
+        expect(problems).toEqual([]);
+      });
+    });
   },
 );

@@ -3,6 +3,7 @@
 // ellipse as a dashed line, grey spans where the fit left the spectrum out, every text escaped.
 import { describe, it } from "node:test";
 import { expect } from "expect";
+import { pathVertices } from "./_svg_path.ts";
 import { renderStonePage } from "../../lib/report/stone_page.ts";
 import { svgChart } from "../../lib/report/svg_chart.ts";
 import { coverageEllipse } from "../../lib/report/ellipse.ts";
@@ -102,13 +103,13 @@ describe("stone page with uncertainties", () => {
   it("draws the from-light's ellipse as a dashed closed line, and says so", () => {
     const html = renderStonePage(row, detail, input);
     const ab = html.slice(html.indexOf('aria-label="a*b* shift'));
-    const lines = [...ab.matchAll(/<polyline[^>]*stroke-dasharray="3 2" points="([^"]+)"/g)];
+    const lines = [...ab.matchAll(/<path[^>]*stroke-dasharray="3 2" d="([^"]+)"/g)];
     expect(lines.length).toBe(1);
-    const pts = lines[0]![1]!.split(" ");
+    const pts = pathVertices(lines[0]![1]!);
     // simplified to the drawing tolerance: fewer vertices, still closed
     expect(pts.length).toBeGreaterThan(3);
     expect(pts.length).toBeLessThanOrEqual(ellipse.length);
-    expect(pts[0]).toBe(pts[pts.length - 1]);
+    expect(pts[0]).toEqual(pts[pts.length - 1]);
     expect(ab).toContain("95 % coverage ellipse");
     // semi-axes k·√λ of the covariance's eigenvalues, k² = −2 ln 0.05 (JCGM 102:2011 §6.5)
     const k = Math.sqrt(-2 * Math.log(0.05));

@@ -1,6 +1,13 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
-import { simplifyLine, svgChart, SvgDefs, type SvgPlot } from "../../lib/report/svg_chart.ts";
+import {
+  pathData,
+  simplifyLine,
+  svgChart,
+  SvgDefs,
+  type SvgPlot,
+} from "../../lib/report/svg_chart.ts";
+import { pathVertices } from "./_svg_path.ts";
 
 /** Distance from p to the segment a–b (closed form: projection clamped to the segment). */
 function segmentDistance(p: [number, number], a: [number, number], b: [number, number]): number {
@@ -49,6 +56,23 @@ describe("printed lines drawn to a tolerance (Ramer–Douglas–Peucker)", () =>
   });
 });
 
+describe("path data of printed lines", () => {
+  it("relative steps between rounded points give back every rounded point exactly", () => {
+    let seed = 11;
+    const rnd = () => ((seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+    const pts = Array.from(
+      { length: 400 },
+      (_, i) => [46 + i * 0.75 + rnd() * 0.2, 10 + 184 * rnd()] as [number, number],
+    );
+    pts.push([46, 194], [45.95, 10.04], [100, 100]); // a step of zero, of −0.1, a long one
+    const d = pathData(pts);
+    expect(d.startsWith("M")).toBe(true);
+    expect(pathVertices(d)).toEqual(
+      pts.map(([x, y]) => [Math.round(x * 10), Math.round(y * 10)]),
+    );
+  });
+});
+
 describe("chart parts shared on a page", () => {
   const plot = (id: string, y: [number, number]): SvgPlot => ({
     id,
@@ -69,19 +93,22 @@ describe("chart parts shared on a page", () => {
       .map((p) => svgChart(p, defs)).join("\n");
     const { text, defs: defined } = defs.resolve(pages);
     expect(text).not.toContain("<!--svg-def");
-    // frame and line of a and b are alike: two definitions, each used twice
-    expect(defined.match(/<g id="svg-def-\d+">/g)!.length).toBe(2);
-    expect(text.match(/<use href="#svg-def-\d+"\/>/g)!.length).toBe(4);
-    // c has its own frame and line, inline: the page draws the same as without sharing
-    const alone = svgChart(plot("c", [0, 2]));
-    expect(text.split("\n")[2]).toBe(alone);
-    // resolved by reference, a and b draw what they would draw alone
+    // a, b and c share the box and x axis; a and b also their y axis and line: three
+    // definitions, drawn 3 + 2 + 2 times by reference
+    expect(defined.match(/<g id="svg-def-\d+">/g)!.length).toBe(3);
+    expect(text.match(/<use href="#svg-def-\d+"\/>/g)!.length).toBe(7);
+    // resolved by reference, every chart draws what it would draw alone
     const expand = (svg: string) =>
       svg.replace(/<use href="#(svg-def-\d+)"\/>/g, (_, id: string) => {
         const start = defined.indexOf(`<g id="${id}">`) + `<g id="${id}">`.length;
         return defined.slice(start, defined.indexOf("</g>", start));
       });
-    expect(expand(text.split("\n")[0]!)).toBe(svgChart(plot("a", [0, 1])));
+    const charts = text.split("\n");
+    expect(expand(charts[0]!)).toBe(svgChart(plot("a", [0, 1])));
+    expect(expand(charts[1]!)).toBe(svgChart(plot("b", [0, 1])));
+    expect(expand(charts[2]!)).toBe(svgChart(plot("c", [0, 2])));
+    // what occurs once (c's y axis and line) stays inline
+    expect(charts[2]!.match(/<use /g)!.length).toBe(1);
   });
 
   it("without repeats there is nothing to define", () => {
