@@ -84,6 +84,13 @@ export function targetTitle(t: NonNullable<ReportRow["target"]>): string {
     : `${t.words}; probability of passing ${(100 * t.passProbability).toFixed(1)} %`;
 }
 
+/** A table cell sorted by `value`, which is written out only where the text differs from it. */
+function sortCell(cls: string, value: number | string, text: string): string {
+  return `<td class="${cls}"${String(value) === text ? "" : ` data-value="${e(String(value))}"`}>${
+    e(text)
+  }</td>`;
+}
+
 function row(r: ReportRow, hasDetail: boolean, offPage = false): string {
   const t = r.target;
   const target = t
@@ -92,9 +99,9 @@ function row(r: ReportRow, hasDetail: boolean, offPage = false): string {
     }${t.verdict ? ` · <span class="${t.verdict}">${t.verdict}</span>` : ""}`
     : "—";
   return `<tr data-index="${r.index}"${offPage ? ` class="off-page"` : ""}>
-<td data-value="${e(r.sample)}">${e(r.sample)}${
+<td${r.outOfGamut ? ` data-value="${e(r.sample)}"` : ""}>${e(r.sample)}${
     r.outOfGamut
-      ? ` <span class="mark" title="${e(MARKS.outOfGamut.text)}">${MARKS.outOfGamut.symbol}</span>`
+      ? ` <span class="mark" title="${e(MARKS.outOfGamut.hint)}">${MARKS.outOfGamut.symbol}</span>`
       : ""
   }</td>
 <td data-value="${r.index}"><span class="swatches"><span style="background:${
@@ -102,13 +109,13 @@ function row(r: ReportRow, hasDetail: boolean, offPage = false): string {
   }" title="${e(r.from)}"></span><span style="background:${e(r.swatchTo)}" title="${
     e(r.to)
   }"></span></span></td>
-<td class="num" data-value="${r.pathMm ?? ""}">${r.pathMm === null ? "—" : r.pathMm.toFixed(1)}</td>
+${sortCell("num", r.pathMm ?? "", r.pathMm === null ? "—" : r.pathMm.toFixed(1))}
 <td class="num day" data-value="${r.lchFrom[0]}">${lch(r.lchFrom, r.lchFromSd)}</td>
 <td class="num lamp" data-value="${r.lchTo[0]}">${lch(r.lchTo, r.lchToSd)}</td>
-<td class="num" data-value="${r.dE00}">${pm(r.dE00, 2, r.dE00Sd)}</td>
+${sortCell("num", r.dE00, pm(r.dE00, 2, r.dE00Sd))}
 <td class="num" data-value="${r.dh}">${r.dh.toFixed(1)}°${
     r.marked
-      ? ` <span class="tag" title="${e(MARKS.marked.text)}">${MARKS.marked.symbol}</span>`
+      ? ` <span class="tag" title="${e(MARKS.marked.hint)}">${MARKS.marked.symbol}</span>`
       : ""
   }</td>
 <td data-value="${t ? targetWeight(t) : ""}" title="${e(t ? targetTitle(t) : "")}">${target}</td>

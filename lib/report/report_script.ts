@@ -134,8 +134,12 @@ export const REPORT_SCRIPT = `
   }
   function setHover(i) { if (i !== hovered) { hovered = i; redrawLot(); } }
 
-  // Summary table sorting.
+  // Summary table sorting: by a cell's data-value, or its text where the two are the same.
   var table = document.getElementById("summary");
+  function sortValue(cell) {
+    var v = cell.getAttribute("data-value");
+    return v === null ? cell.textContent.trim() : v;
+  }
 
   // A long table shows one page of the rows the filter leaves, in the sorted order.
   var PAGE = table ? Number(table.getAttribute("data-page-rows")) || 0 : 0, page = 0;
@@ -170,7 +174,7 @@ export const REPORT_SCRIPT = `
         var rows = Array.prototype.slice.call(body.rows);
         var idx = Array.prototype.indexOf.call(th.parentNode.children, th);
         rows.sort(function (a, b) {
-          var va = a.cells[idx].getAttribute("data-value"), vb = b.cells[idx].getAttribute("data-value");
+          var va = sortValue(a.cells[idx]), vb = sortValue(b.cells[idx]);
           if (va === "" || vb === "") return va === vb ? 0 : va === "" ? 1 : -1;
           var na = Number(va), nb = Number(vb), r;
           r = (!isNaN(na) && !isNaN(nb)) ? na - nb : String(va).localeCompare(String(vb), undefined, { numeric: true });

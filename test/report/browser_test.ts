@@ -72,7 +72,11 @@ async function openReport(htmlPath: string, screenshot: string) {
       const col = [...th.parentElement!.children].indexOf(th);
       (th as HTMLElement).click();
       const values = [...document.querySelectorAll("#summary tbody tr")].map((tr) =>
-        Number((tr as HTMLTableRowElement).cells[col]!.getAttribute("data-value"))
+        // the sort key: data-value, or the text where the two are the same
+        Number(
+          (tr as HTMLTableRowElement).cells[col]!.getAttribute("data-value") ??
+            (tr as HTMLTableRowElement).cells[col]!.textContent!.trim(),
+        )
       );
       return values.every((v, i) => i === 0 || v >= values[i - 1]!);
     });

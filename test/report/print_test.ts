@@ -173,7 +173,10 @@ describe(
           click("sample");
           const names = rows().map((tr) => tr.cells[0]!.textContent!.trim());
           click("dE00");
-          const dE = rows().map((tr) => Number(tr.cells[5]!.getAttribute("data-value")));
+          // the sort key: data-value, or the text where the two are the same
+          const dE = rows().map((tr) =>
+            Number(tr.cells[5]!.getAttribute("data-value") ?? tr.cells[5]!.textContent!.trim())
+          );
           click("target");
           const verdicts = rows().map((tr) => tr.cells[7]!.textContent!.trim().split(" ")[0]!);
           const targetDe = rows().map((tr) =>
