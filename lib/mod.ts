@@ -134,7 +134,14 @@ export { targetPassProbability, type TargetProbability } from "./dopant/target_p
 export { analyseFile, analyseSample } from "./analysis/analyse_sample.ts";
 export type { SampleSettings } from "./analysis/sample_settings.ts";
 export type { SampleResult } from "./analysis/sample_result.ts";
-export type { StoredAxis, UniformAxis } from "./analysis/chart_curves.ts";
+export {
+  axisValues,
+  curveValues,
+  type PackedCurve,
+  type StoredAxis,
+  type StoredCurve,
+  type UniformAxis,
+} from "./analysis/chart_curves.ts";
 export type { ResultsDocument } from "./analysis/results_document.ts";
 export { type ConvertOptions, convertSpectrum } from "./analysis/convert_spectrum.ts";
 export { VERSION } from "./version.ts";

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import type { StoredAxis } from "./chart_curves.ts";
+import type { StoredAxis, StoredCurve } from "./chart_curves.ts";
 import type { ColorRow } from "../cie/spectrum_color.ts";
 import type { ColorChange } from "../cie/color_change.ts";
 import type { ThicknessSeries } from "../cie/thickness_series.ts";
@@ -114,7 +114,7 @@ export interface BandsResult {
   alphaBase?: "natural";
   /** The fitted data and model, for the charts. */
   /** Data and model against wavelength; the axis as `chart_curves.ts` stores it. */
-  curve: { nm: StoredAxis; data: number[]; model: number[] };
+  curve: { nm: StoredAxis; data: StoredCurve; model: StoredCurve };
 }
 
 /** The result for one spectrum. */
@@ -149,7 +149,7 @@ export interface SampleResult {
   target: TargetResult | null;
   /** Transmittance at the reporting path, for the charts. */
   /** Transmittance against wavelength; the axis as `chart_curves.ts` stores it. */
-  plot: { nm: StoredAxis; t: number[] };
+  plot: { nm: StoredAxis; t: StoredCurve };
   /** Dopant level from the calibration, when one applies. */
   dopant: DopantResult | null;
   /** Fitted bands, or null when the fit was not possible. */

@@ -10,7 +10,8 @@ import type { CalibrationSummary, ReportHeader } from "../analysis/results_docum
 import { roundTo } from "../numeric/round.ts";
 import { spectralLocus } from "../cie/dominant_wavelength.ts";
 import { coverageEllipse } from "./ellipse.ts";
-import { packCurve, type PackedCurve } from "./packed_curve.ts";
+import { packCurve } from "./packed_curve.ts";
+import type { StoredCurve } from "../analysis/chart_curves.ts";
 
 /** One line of the summary table. */
 export interface ReportRow {
@@ -52,12 +53,12 @@ export interface ReportDetail {
   sample: string;
   file: string;
   /** Transmittance; the axis as stored (from/step/count for equal steps: see `axisValues`). */
-  plot: { nm: StoredAxis; t: PackedCurve | number[] };
+  plot: { nm: StoredAxis; t: StoredCurve };
   /** The band fit; the residual is data − model, formed where it is drawn. */
   bands: {
     nm: StoredAxis;
-    data: PackedCurve | number[];
-    model: PackedCurve | number[];
+    data: StoredCurve;
+    model: StoredCurve;
     ordinate: string;
     /** Stretches left out of the fit. */
     excluded?: { fromNm: number; toNm: number; reason: string }[];

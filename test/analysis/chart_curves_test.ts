@@ -1,6 +1,11 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
-import { axisValues, thinBandCurve, thinTransmittance } from "../../lib/analysis/chart_curves.ts";
+import {
+  axisValues,
+  curveValues,
+  thinBandCurve,
+  thinTransmittance,
+} from "../../lib/analysis/chart_curves.ts";
 import { roundTo } from "../../lib/numeric/round.ts";
 
 describe("stored chart curves (lib/analysis/chart_curves.ts)", () => {
@@ -13,7 +18,7 @@ describe("stored chart curves (lib/analysis/chart_curves.ts)", () => {
     expect(Array.isArray(stored.nm)).toBe(false);
     const expected = nm.filter((_, i) => i % 4 === 0).map((v) => roundTo(v, 2));
     expect(axisValues(stored.nm)).toEqual(expected);
-    expect(stored.t.length).toBe(expected.length);
+    expect(curveValues(stored.t).length).toBe(expected.length);
   });
 
   it("a descending wavenumber grid turned into nm keeps its list (the steps are not equal)", () => {
@@ -27,5 +32,22 @@ describe("stored chart curves (lib/analysis/chart_curves.ts)", () => {
     const nm = [400, 400.7, 401.5, 402.2, 403.1, 404, 404.6];
     const stored = thinTransmittance(nm, t(nm.length));
     expect(stored.nm).toEqual(nm);
+  });
+
+  it("values are stored as integer steps that give back the rounded values bit for bit", () => {
+    let seed = 5;
+    const rnd = () => ((seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+    const nm = Array.from({ length: 300 }, (_, i) => 360 + 1.5 * i);
+    const values = nm.map(() => rnd() * (rnd() < 0.5 ? 1 : 40));
+    const stored = thinTransmittance(nm, values);
+    expect(Array.isArray(stored.t)).toBe(false);
+    // the same doubles as Number(v.toFixed(5)), the stored precision (Object.is per value)
+    expect(curveValues(stored.t)).toEqual(values.map((v) => roundTo(v, 5)));
+    const band = thinBandCurve(nm.map((x) => 1e7 / x), values, values.map((v) => v / 3));
+    expect(curveValues(band.model)).toEqual(values.map((v) => roundTo(v / 3, 5)));
+    // a gap keeps the list, as older results hold it
+    const gap = thinTransmittance([400, 401, 402], [0.1, NaN, 0.3]);
+    expect(Array.isArray(gap.t)).toBe(true);
+    expect(curveValues([0.1, 0.2])).toEqual([0.1, 0.2]);
   });
 });
