@@ -5,9 +5,9 @@
  * @module
  */
 import type { ReportHeader, ResultsDocument } from "../analysis/results_document.ts";
-import { renderResults } from "../report/report_input.ts";
+import { renderResultsParts } from "../report/report_input.ts";
 import { readChartBundle } from "./chart_bundle.ts";
-import { writeTextAtomic } from "./atomic_write.ts";
+import { writeChunksAtomic } from "./atomic_write.ts";
 import { SettingsError } from "./settings_schema.ts";
 import { readTextLimited } from "./read_limited.ts";
 import { parseFailure } from "./read_settings.ts";
@@ -76,9 +76,9 @@ export async function reportFromResults(resultsPath: string, outDir: string): Pr
     throw new SettingsError(`Cannot read results ${resultsPath}: ${parseFailure(e, text)}`);
   }
   const doc = checkResults(parsed, resultsPath);
-  let html: string;
+  let html: string[];
   try {
-    html = renderResults(doc, await readChartBundle());
+    html = renderResultsParts(doc, await readChartBundle());
   } catch (e) {
     throw new SettingsError(
       `${resultsPath} holds results the report cannot show: ${(e as Error).message}`,
@@ -87,7 +87,7 @@ export async function reportFromResults(resultsPath: string, outDir: string): Pr
   const out = `${outDir.replace(/\/$/, "")}/index.html`;
   try {
     await Deno.mkdir(outDir, { recursive: true });
-    await writeTextAtomic(out, html);
+    await writeChunksAtomic(out, html);
   } catch (e) {
     // one line naming the path and the cause (exit code 1), as for the batch
     throw new SettingsError(new OutputError(out, e).message);

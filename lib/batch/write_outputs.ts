@@ -10,7 +10,7 @@
 import type { SampleResult } from "../analysis/sample_result.ts";
 import type { ResultsError, ResultsHeader } from "../analysis/results_document.ts";
 import { ReportInputBuilder } from "../report/report_input.ts";
-import { renderReport } from "../report/render_report.ts";
+import { renderReportParts } from "../report/render_report.ts";
 import { openTemp, type TempWriter, writeChunksToTemp } from "./atomic_write.ts";
 import { readChartBundle } from "./chart_bundle.ts";
 import { resultsCsvHeader, resultsCsvRows } from "./results_csv.ts";
@@ -80,8 +80,8 @@ export async function writeOutputs(
       `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)}}\n`,
     );
     for (const [w, path] of writers.splice(0)) temps.push([await w.finish(), path]);
-    const html = renderReport(builder.finish(errors, manifestNotes), await readChartBundle());
-    temps.push([await writeChunksToTemp(paths.html, [html]), paths.html]);
+    const html = renderReportParts(builder.finish(errors, manifestNotes), await readChartBundle());
+    temps.push([await writeChunksToTemp(paths.html, html), paths.html]);
     for (const [tmp, path] of temps) await Deno.rename(tmp, path);
   } catch (e) {
     for (const [w] of writers) await w.abandon();

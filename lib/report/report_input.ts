@@ -17,7 +17,7 @@ import {
   type ReportRow,
   reportRow,
 } from "./report_data.ts";
-import { renderReport, ROW_LIMIT } from "./render_report.ts";
+import { renderReportParts, ROW_LIMIT } from "./render_report.ts";
 
 /** Most samples placed on one calibration plot. */
 const PLACED_LIMIT = 5000;
@@ -108,12 +108,16 @@ function withoutFolders(message: string, file: string): string {
   return cut < 0 ? message : message.split(file.slice(0, cut + 1)).join("");
 }
 
-/** Renders the page of a whole results document (what `crystint report` does). */
-export function renderResults(
-  doc: ResultsHeader & { samples: SampleResult[]; errors: ResultsError[]; manifest: string[] },
-  chartJs: string,
-): string {
+/** The results document a page is rendered from. */
+type WholeResults = ResultsHeader & {
+  samples: SampleResult[];
+  errors: ResultsError[];
+  manifest: string[];
+};
+
+/** Renders the page of a whole results document (what `crystint report` does), in parts. */
+export function renderResultsParts(doc: WholeResults, chartJs: string): string[] {
   const builder = new ReportInputBuilder(doc);
   for (const s of doc.samples) builder.add(s);
-  return renderReport(builder.finish(doc.errors, doc.manifest), chartJs);
+  return renderReportParts(builder.finish(doc.errors, doc.manifest), chartJs);
 }

@@ -143,7 +143,7 @@ export const REPORT_SCRIPT = `
 
   // A long table shows one page of the rows the filter leaves, in the sorted order.
   var PAGE = table ? Number(table.getAttribute("data-page-rows")) || 0 : 0, page = 0;
-  var prevPage = document.getElementById("page-prev"), nextPage = document.getElementById("page-next");
+  var prevPage = document.querySelectorAll(".page-prev"), nextPage = document.querySelectorAll(".page-next");
   function paginate() {
     if (!PAGE) return;
     var rows = table.tBodies[0].rows, n = 0, k = 0, i;
@@ -156,13 +156,21 @@ export const REPORT_SCRIPT = `
       rows[i].classList.toggle("off-page", k < lo || k >= hi);
       k++;
     }
-    text("page-info", n ? "rows " + (lo + 1) + "–" + Math.min(hi, n) + " of " + n : "no rows");
-    prevPage.disabled = page === 0;
-    nextPage.disabled = page >= pages - 1;
+    var info = n ? "rows " + (lo + 1) + "–" + Math.min(hi, n) + " of " + n : "no rows";
+    document.querySelectorAll(".page-info").forEach(function (el) { el.textContent = info; });
+    prevPage.forEach(function (b) { b.disabled = page === 0; });
+    nextPage.forEach(function (b) { b.disabled = page >= pages - 1; });
   }
   if (PAGE) {
-    prevPage.addEventListener("click", function () { page--; paginate(); });
-    nextPage.addEventListener("click", function () { page++; paginate(); });
+    prevPage.forEach(function (b) { b.addEventListener("click", function () { page--; paginate(); }); });
+    nextPage.forEach(function (b) {
+      b.addEventListener("click", function () {
+        page++;
+        paginate();
+        // from the buttons under the table, the new page is read from its top
+        if (b.closest(".table-box + .tools")) table.scrollIntoView();
+      });
+    });
   }
   if (table) {
     table.querySelectorAll("th[data-key]").forEach(function (th) {

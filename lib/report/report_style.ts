@@ -30,7 +30,7 @@ h3 { font-size: 15px; margin: 0 0 6px; }
 .hint, .legend { color: var(--muted); font-size: 12.5px; margin: 6px 0 0; }
 .table-box { overflow-x: auto; max-width: 100%; }
 @media screen { tr.off-page { display: none; } }
-.pager { white-space: nowrap; } .pager button { font: inherit; }
+.pager { white-space: nowrap; } .pager button { font: inherit; } .table-box + .tools { margin: 8px 0 0; }
 table.summary { border-collapse: collapse; width: 100%; font-variant-numeric: tabular-nums; font-size: 13.5px; }
 table.summary th { text-align: left; font-weight: 600; color: var(--muted); border-bottom: 2px solid var(--rule);
   padding: 6px 8px; cursor: pointer; white-space: nowrap; user-select: none; }

@@ -354,24 +354,28 @@ describe(
             return {
               rows: rows.length,
               seen: seen.map((tr) => tr.cells[0]!.textContent!.trim()),
-              info: document.getElementById("page-info")!.textContent,
-              prev: (document.getElementById("page-prev") as HTMLButtonElement).disabled,
-              next: (document.getElementById("page-next") as HTMLButtonElement).disabled,
+              // the two pagers (above and below the table) always agree
+              info: [...document.querySelectorAll(".page-info")].map((x) => x.textContent)
+                .join(" | "),
+              prev: [...document.querySelectorAll<HTMLButtonElement>(".page-prev")]
+                .map((b) => b.disabled).join(),
+              next: [...document.querySelectorAll<HTMLButtonElement>(".page-next")]
+                .map((b) => b.disabled).join(),
             };
           });
         let s = await state();
         expect(s.rows).toBe(620);
         expect(s.seen.length).toBe(250);
         expect(s.seen[0]).toBe("long-000");
-        expect(s.info).toBe("rows 1–250 of 620");
-        expect([s.prev, s.next]).toEqual([true, false]);
-        await page.click("#page-next");
-        await page.click("#page-next");
+        expect(s.info).toBe("rows 1–250 of 620 | rows 1–250 of 620");
+        expect([s.prev, s.next]).toEqual(["true,true", "false,false"]);
+        await page.click(".page-next"); // above the table
+        await page.click(".table-box + .tools .page-next"); // below it
         s = await state();
         expect(s.seen.length).toBe(120);
         expect(s.seen[0]).toBe("long-500");
-        expect(s.info).toBe("rows 501–620 of 620");
-        expect([s.prev, s.next]).toEqual([false, true]);
+        expect(s.info).toBe("rows 501–620 of 620 | rows 501–620 of 620");
+        expect([s.prev, s.next]).toEqual(["false,false", "true,true"]);
         // the filter finds rows on any page and starts again at the first page
         await page.evaluate(() => {
           const box = document.getElementById("filter") as HTMLInputElement;
@@ -380,7 +384,7 @@ describe(
         });
         s = await state();
         expect(s.seen).toEqual(Array.from({ length: 10 }, (_, i) => `long-61${i}`));
-        expect(s.info).toBe("rows 1–10 of 10");
+        expect(s.info).toBe("rows 1–10 of 10 | rows 1–10 of 10");
         // sorting by sample, descending: the first page starts with the last name
         await page.evaluate(() => {
           const box = document.getElementById("filter") as HTMLInputElement;
