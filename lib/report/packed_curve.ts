@@ -11,15 +11,26 @@ import {
   packSteps,
   type StoredCurve,
 } from "../analysis/chart_curves.ts";
+import { roundTo } from "../numeric/round.ts";
 
 export { curveValues };
 export type { PackedCurve };
 
 /** Significant digits of the largest magnitude kept on the page. */
 const DIGITS = 4;
+/** Decimals results.json stores curves at: the page never needs more. */
+const STORED_DECIMALS = 5;
+
+/** Decimals that keep `digits` significant digits of the largest finite magnitude (0 … 9). */
+export function decimalsFor(values: number[], digits = DIGITS): number {
+  let max = 0;
+  for (const x of values) if (Number.isFinite(x) && Math.abs(x) > max) max = Math.abs(x);
+  return max > 0 ? Math.min(9, Math.max(0, digits - 1 - Math.floor(Math.log10(max)))) : 0;
+}
 
 /**
- * The curve at page precision, or the values as they are when one is not finite.
+ * The curve at page precision (4 significant digits of its largest value, or `decimals`),
+ * rounded as `Number(v.toFixed(d))` rounds; the values as they are when one is not finite.
  *
  * @example
  * ```ts
@@ -28,13 +39,27 @@ const DIGITS = 4;
  * if (v.join() !== "0.5,0.5123,0.4") throw new Error(v.join());
  * ```
  */
-export function packCurve(values: StoredCurve): StoredCurve {
+export function packCurve(values: StoredCurve, decimals?: number): StoredCurve {
   const v = curveValues(values);
-  let max = 0;
-  for (const x of v) {
-    if (!Number.isFinite(x)) return v;
-    if (Math.abs(x) > max) max = Math.abs(x);
-  }
-  const decimals = max > 0 ? Math.min(9, Math.max(0, DIGITS - 1 - Math.floor(Math.log10(max)))) : 0;
-  return packSteps(v, decimals);
+  if (!v.every(Number.isFinite)) return v;
+  const d = decimals ?? decimalsFor(v);
+  return packSteps(v.map((x) => roundTo(x, d)), d);
+}
+
+/**
+ * A band fit's data and model packed with one number of decimals, enough for 4 significant
+ * digits of the larger curve and 3 of their difference (the residual drawn on its own axis),
+ * at most the stored decimals.
+ */
+export function packFitCurves(
+  data: StoredCurve,
+  model: StoredCurve,
+): { data: StoredCurve; model: StoredCurve } {
+  const d = curveValues(data), m = curveValues(model);
+  const residual = d.map((v, i) => v - m[i]!);
+  const decimals = Math.min(
+    STORED_DECIMALS,
+    Math.max(decimalsFor([...d, ...m]), decimalsFor(residual, 3)),
+  );
+  return { data: packCurve(d, decimals), model: packCurve(m, decimals) };
 }

@@ -151,12 +151,12 @@ ${rep?.note ? `<p class="note">${e(rep.note)}</p>` : ""}
 }
 
 /**
- * Renders the report.
+ * Renders the report in consecutive parts: written one after another they are the page (the
+ * largest, stone pages and page data, are never joined into one string).
  *
  * @param input Report data (see report_data.ts).
  * @param chartJs Source of chart.js's UMD bundle, inlined so the page works offline.
  */
-/** The report page in consecutive parts: written one after another they are the page. */
 export function renderReportParts(input: ReportInput, chartJs: string): string[] {
   const first = input.rows[0];
   const from = first?.from ?? "D65", to = first?.to ?? "A", obs = first?.observer ?? "10";

@@ -10,7 +10,7 @@ import type { CalibrationSummary, ReportHeader } from "../analysis/results_docum
 import { roundTo } from "../numeric/round.ts";
 import { spectralLocus } from "../cie/dominant_wavelength.ts";
 import { coverageEllipse } from "./ellipse.ts";
-import { packCurve } from "./packed_curve.ts";
+import { packCurve, packFitCurves } from "./packed_curve.ts";
 import type { StoredCurve } from "../analysis/chart_curves.ts";
 
 /** One line of the summary table. */
@@ -226,8 +226,7 @@ export function reportDetail(result: SampleResult): ReportDetail {
     bands: result.bands
       ? {
         nm: result.bands.curve.nm,
-        model: packCurve(result.bands.curve.model),
-        data: packCurve(result.bands.curve.data),
+        ...packFitCurves(result.bands.curve.data, result.bands.curve.model),
         ordinate: result.bands.ordinate,
         excluded: result.bands.excluded.map((x) => ({
           fromNm: r(x.fromNm, 1),

@@ -47,7 +47,7 @@ export const REPORT_SCRIPT = `
     for (var i = 0; i < c.d.length; i++) { k += c.d[i]; out.push(k / c.q); }
     return out;
   }
-  function roundTo(v, decimals) { return isFinite(v) ? Number(v.toFixed(decimals)) : NaN; }
+  function roundTo(v, decimals) { return typeof v === "number" && isFinite(v) ? Number(v.toFixed(decimals)) : NaN; }
   function axisValues(axis) {
     if (Array.isArray(axis)) return axis;
     var out = [];
@@ -179,16 +179,17 @@ export const REPORT_SCRIPT = `
         table.querySelectorAll("th").forEach(function (o) { o.removeAttribute("aria-sort"); });
         th.setAttribute("aria-sort", dir);
         var body = table.tBodies[0];
-        var rows = Array.prototype.slice.call(body.rows);
         var idx = Array.prototype.indexOf.call(th.parentNode.children, th);
+        // each row's key read once, then sorted (not read again in every comparison)
+        var rows = Array.prototype.map.call(body.rows, function (tr) { return { tr: tr, key: sortValue(tr.cells[idx]) }; });
         rows.sort(function (a, b) {
-          var va = sortValue(a.cells[idx]), vb = sortValue(b.cells[idx]);
+          var va = a.key, vb = b.key;
           if (va === "" || vb === "") return va === vb ? 0 : va === "" ? 1 : -1;
           var na = Number(va), nb = Number(vb), r;
           r = (!isNaN(na) && !isNaN(nb)) ? na - nb : String(va).localeCompare(String(vb), undefined, { numeric: true });
           return dir === "ascending" ? r : -r;
         });
-        rows.forEach(function (r) { body.appendChild(r); });
+        rows.forEach(function (r) { body.appendChild(r.tr); });
         page = 0;
         paginate();
       });
@@ -303,7 +304,10 @@ export const REPORT_SCRIPT = `
       bc.parentNode.parentNode.hidden = false;
       var bandNm = axisValues(d.bands.nm);
       var bandData = curveValues(d.bands.data), bandModel = curveValues(d.bands.model);
-      var residual = bandData.map(function (v, i) { return roundTo(v - bandModel[i], 5); });
+      var residual = bandData.map(function (v, i) {
+        var m = bandModel[i];
+        return typeof v === "number" && typeof m === "number" && isFinite(v) && isFinite(m) ? roundTo(v - m, 5) : null;
+      });
       function pts(arr) { return bandNm.map(function (x, i) { return { x: x, y: arr[i] }; }); }
       charts.push(new Chart(bc, { type: "scatter", data: { datasets: [
         { label: "measured " + d.bands.ordinate, data: pts(bandData), showLine: true, pointRadius: 0, borderColor: INK, borderWidth: 1.2 },

@@ -1,6 +1,6 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
-import { curveValues, packCurve } from "../../lib/report/packed_curve.ts";
+import { curveValues, packCurve, packFitCurves } from "../../lib/report/packed_curve.ts";
 
 describe("page curves packed as integer steps", () => {
   it("give back each value rounded to 4 significant digits of the largest (half a unit at most)", () => {
@@ -26,5 +26,24 @@ describe("page curves packed as integer steps", () => {
     const values = [0.1, NaN, 0.3];
     expect(packCurve(values)).toBe(values);
     expect(curveValues([1, 2])).toEqual([1, 2]);
+  });
+
+  it("rounds halves as Number(toFixed) does, negative ones too (stored values have 5 decimals)", () => {
+    // largest 1.5 → 3 decimals; −0.0625 and 0.0625 are exact halves at that precision
+    const values = [1.5, -0.0625, 0.0625, -1.2345, 0.00005];
+    expect(curveValues(packCurve(values))).toEqual(values.map((v) => Number(v.toFixed(3))));
+    // (−1.2345 is 1.23449999… as a double, so it goes down)
+    expect(curveValues(packCurve(values))).toEqual([1.5, -0.063, 0.063, -1.234, 0]);
+  });
+
+  it("packs a fit's data and model alike, fine enough for their difference", () => {
+    // absorbance near 1.5 with a residual of a few 1e-4: 4 digits of 1.5 would step by 1e-3
+    const model = Array.from({ length: 50 }, (_, i) => 1.5 * Math.exp(-(((i - 25) / 8) ** 2)));
+    const data = model.map((m, i) => Number((m + 3e-4 * Math.sin(i)).toFixed(5)));
+    const packed = packFitCurves(data, model.map((m) => Number(m.toFixed(5))));
+    const d = curveValues(packed.data), m = curveValues(packed.model);
+    expect((packed.data as { q: number }).q).toBe((packed.model as { q: number }).q);
+    // 3 significant digits of the largest difference (3e-4): steps of 1e-6, capped at 1e-5
+    d.forEach((v, i) => expect(Math.abs(v - m[i]! - (data[i]! - model[i]!))).toBeLessThan(2e-5));
   });
 });

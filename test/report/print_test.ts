@@ -258,6 +258,13 @@ describe(
             /^\s*Lot 7 colour statement[\s\S]*\n\s*stone-0\d\d\s+stone-0\d\d\.csv/.test(p)
           );
           expect(stonePages.length).toBe(30);
+          // axis titles and tick labels drawn by reference (<use> of the page's shared
+          // definitions) are printed on every stone page
+          for (const p of stonePages) {
+            expect(p).toContain("wavelength (nm)");
+            expect(p).toContain("transmittance");
+            expect(p).toMatch(/\b600\b/);
+          }
           expect(pages.filter((p) => /page \d+ of \d+/.test(p)).length).toBe(pdfPageCount(pdf));
         }
         expect(problems).toEqual([]);
