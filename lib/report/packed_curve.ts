@@ -5,24 +5,18 @@
  *
  * @module
  */
-import {
-  curveValues,
-  type PackedCurve,
-  packSteps,
-  type StoredCurve,
-} from "../analysis/chart_curves.ts";
+import { curveValues, packSteps, type StoredCurve } from "../analysis/chart_curves.ts";
 import { roundTo } from "../numeric/round.ts";
 
-export { curveValues };
-export type { PackedCurve };
-
-/** Significant digits of the largest magnitude kept on the page. */
+/** Significant digits of the largest magnitude kept on the page (our choice: 1 part in 10⁴). */
 const DIGITS = 4;
+/** Significant digits of a fit's largest residual kept on the page (our choice). */
+const RESIDUAL_DIGITS = 3;
 /** Decimals results.json stores curves at: the page never needs more. */
 const STORED_DECIMALS = 5;
 
 /** Decimals that keep `digits` significant digits of the largest finite magnitude (0 … 9). */
-export function decimalsFor(values: number[], digits = DIGITS): number {
+function decimalsFor(values: number[], digits = DIGITS): number {
   let max = 0;
   for (const x of values) if (Number.isFinite(x) && Math.abs(x) > max) max = Math.abs(x);
   return max > 0 ? Math.min(9, Math.max(0, digits - 1 - Math.floor(Math.log10(max)))) : 0;
@@ -34,7 +28,8 @@ export function decimalsFor(values: number[], digits = DIGITS): number {
  *
  * @example
  * ```ts
- * import { curveValues, packCurve } from "./packed_curve.ts";
+ * import { curveValues } from "../analysis/chart_curves.ts";
+ * import { packCurve } from "./packed_curve.ts";
  * const v = curveValues(packCurve([0.5, 0.51234, 0.4]));
  * if (v.join() !== "0.5,0.5123,0.4") throw new Error(v.join());
  * ```
@@ -59,7 +54,7 @@ export function packFitCurves(
   const residual = d.map((v, i) => v - m[i]!);
   const decimals = Math.min(
     STORED_DECIMALS,
-    Math.max(decimalsFor([...d, ...m]), decimalsFor(residual, 3)),
+    Math.max(decimalsFor([...d, ...m]), decimalsFor(residual, RESIDUAL_DIGITS)),
   );
   return { data: packCurve(d, decimals), model: packCurve(m, decimals) };
 }

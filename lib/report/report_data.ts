@@ -4,14 +4,13 @@
  *
  * @module
  */
-import type { StoredAxis } from "../analysis/chart_curves.ts";
+import type { StoredAxis, StoredCurve } from "../analysis/chart_curves.ts";
 import type { SampleResult } from "../analysis/sample_result.ts";
 import type { CalibrationSummary, ReportHeader } from "../analysis/results_document.ts";
 import { roundTo } from "../numeric/round.ts";
 import { spectralLocus } from "../cie/dominant_wavelength.ts";
 import { coverageEllipse } from "./ellipse.ts";
 import { packCurve, packFitCurves } from "./packed_curve.ts";
-import type { StoredCurve } from "../analysis/chart_curves.ts";
 
 /** One line of the summary table. */
 export interface ReportRow {

@@ -9,8 +9,7 @@ import { escapeHtml as e } from "./escape.ts";
 import type { ReportDetail, ReportInput, ReportRow } from "./report_data.ts";
 import { paddedRange, svgChart, type SvgDefs, type SvgSeries } from "./svg_chart.ts";
 import { MARKS } from "./marks.ts";
-import { axisValues } from "../analysis/chart_curves.ts";
-import { curveValues } from "./packed_curve.ts";
+import { axisValues, curveValues } from "../analysis/chart_curves.ts";
 
 /** Colours of the two lights and the ink (the report's own palette). */
 export const PALETTE = { day: "#2c6e73", lamp: "#b5651d", ink: "#1e2a32", other: "#7b5ea7" };

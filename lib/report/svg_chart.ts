@@ -1,5 +1,5 @@
 /**
- * Static SVG charts for the printed stone pages: axes with round ticks, polylines and points,
+ * Static SVG charts for the printed stone pages: axes with round ticks, lines and points,
  * and arrows. Pure string output, so a page prints the same in any browser, with no script.
  * Tick steps follow the usual 1-2-5 rule (common practice).
  *
@@ -77,7 +77,8 @@ export function paddedRange(values: number[], pad = 0.05): [number, number] {
   return [lo - d, hi + d];
 }
 
-/** Largest distance (px) a drawn line may stray from the data: a sixth of the thinnest stroke. */
+/** Largest distance (px) a drawn line may stray from the data (our choice: a quarter of the
+ * thinnest stroke drawn, 0.8 px). */
 const LINE_TOLERANCE_PX = 0.2;
 
 /**
@@ -137,7 +138,7 @@ function frame(plot: SvgPlot) {
 }
 
 /** A line series as a path, simplified to the drawing tolerance; "" with < 2 points. */
-function polyline(s: SvgSeries, geometry: ReturnType<typeof frame>): string {
+function linePath(s: SvgSeries, geometry: ReturnType<typeof frame>): string {
   const right = s.axis === "right";
   const pts = s.points.filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));
   if (pts.length < 2) return "";
@@ -284,7 +285,7 @@ export function svgChart(plot: SvgPlot, defs?: SvgDefs): string {
     const right = s.axis === "right";
     const pts = s.points.filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));
     if (s.kind === "line") {
-      const line = polyline(s, geometry);
+      const line = linePath(s, geometry);
       body.push(s.shared && defs && line ? defs.share(line) : line);
     } else if (s.kind === "points") {
       for (const [a, b] of pts) {

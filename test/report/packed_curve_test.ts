@@ -1,6 +1,7 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
-import { curveValues, packCurve, packFitCurves } from "../../lib/report/packed_curve.ts";
+import { curveValues } from "../../lib/analysis/chart_curves.ts";
+import { packCurve, packFitCurves } from "../../lib/report/packed_curve.ts";
 
 describe("page curves packed as integer steps", () => {
   it("give back each value rounded to 4 significant digits of the largest (half a unit at most)", () => {
