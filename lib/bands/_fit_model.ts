@@ -100,9 +100,23 @@ export interface ModelFit {
   iterations: number;
 }
 
-/** Fits a fixed model once from its starts. */
-export function fitModelOnce(data: FitData, spec: ModelSpec): ModelFit {
-  const { x, y, sigma } = data;
+/** The separable model of a band spec on ascending wavenumbers x, with its starts and bounds. */
+export interface BandSeparableModel {
+  model: SeparableModel;
+  start: Float64Array;
+  lower: Float64Array;
+  upper: Float64Array;
+  /** Centre and half-width of the range (the baseline's t), and its top (the edge's reference). */
+  mid: number;
+  half: number;
+  top: number;
+}
+
+/**
+ * Builds the separable model of a spec: nonlinear θ = [centre, FWHM] per band (then the edge
+ * width), basis columns = bands, baseline terms, edge; with first and second derivatives.
+ */
+export function bandSeparableModel(x: Float64Array, spec: ModelSpec): BandSeparableModel {
   const n = x.length;
   const nb = spec.bands.length, nt = spec.baselineTerms.length;
   const hasEdge = spec.edgeWidthCm1 !== undefined;
@@ -186,7 +200,49 @@ export function fitModelOnce(data: FitData, spec: ModelSpec): ModelFit {
         }
       }
     },
+    // pairs (centre, centre), (centre, width), (width, width) per band, then (edge, edge)
+    curvature: (theta, phi, d2phi) => {
+      for (let b = 0; b < nb; b++) {
+        const c = theta[2 * b]!, f = theta[2 * b + 1]!;
+        const off = b * n, cc = 3 * b * n, cf = (3 * b + 1) * n, ff = (3 * b + 2) * n;
+        if (shapes[b] === "gaussian") {
+          const s = f / FWHM_PER_SIGMA, inv = 1 / (s * s);
+          for (let i = 0; i < n; i++) {
+            const d = x[i]! - c, g = phi[off + i]!, v = d * d * inv;
+            d2phi[cc + i] = g * inv * (v - 1);
+            d2phi[cf + i] = ((g * d * inv) / f) * (v - 2);
+            d2phi[ff + i] = ((g * v) / (f * f)) * (v - 3);
+          }
+        } else {
+          const hw = f / 2, inv = 1 / (hw * hw);
+          for (let i = 0; i < n; i++) {
+            const d = x[i]! - c, l = phi[off + i]!, v = d * d * inv;
+            d2phi[cc + i] = 2 * l * l * inv * (4 * l * v - 1);
+            d2phi[cf + i] = ((4 * l * l * d * inv) / f) * (2 * l * v - 1);
+            d2phi[ff + i] = ((2 * l * l * v) / (f * f)) * (4 * l * v - 3);
+          }
+        }
+      }
+      if (hasEdge) {
+        const w = theta[q - 1]!, off = (m - 1) * n, ww = 3 * nb * n;
+        for (let i = 0; i < n; i++) {
+          const u = (x[i]! - top) / w;
+          d2phi[ww + i] = (phi[off + i]! * u * (u + 2)) / (w * w);
+        }
+      }
+    },
   };
+  return { model, start, lower, upper, mid, half, top };
+}
+
+/** Fits a fixed model once from its starts. */
+export function fitModelOnce(data: FitData, spec: ModelSpec): ModelFit {
+  const { x, y, sigma } = data;
+  const nb = spec.bands.length, nt = spec.baselineTerms.length;
+  const hasEdge = spec.edgeWidthCm1 !== undefined;
+  const m = nb + nt + (hasEdge ? 1 : 0);
+  const q = 2 * nb + (hasEdge ? 1 : 0);
+  const { model, start, lower, upper, mid, half, top } = bandSeparableModel(x, spec);
   const weights = Float64Array.from(sigma, (s) => 1 / (s * s));
   const fit = variableProjection(y, model, start, { lower, upper, weights });
   const p = q + m;

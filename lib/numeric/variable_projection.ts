@@ -24,6 +24,12 @@ export interface SeparableModel {
    * (column-major n×q: dphi[k·n + i] = ∂φ_columnOf[k](xᵢ; θ)/∂θₖ).
    */
   basis: (theta: Float64Array, phi: Float64Array, dphi?: Float64Array) => void;
+  /**
+   * Optional second derivatives, for exact-Hessian Newton steps near the optimum: fills
+   * `d2phi` (n per pair) with ∂²φⱼ/∂θₖ∂θₗ for every pair k ≤ l acting on the same column j,
+   * pairs ordered by k, then l; `phi` holds the basis at theta (as `basis` filled it).
+   */
+  curvature?: (theta: Float64Array, phi: Float64Array, d2phi: Float64Array) => void;
 }
 
 /** Options of {@linkcode variableProjection}. */
@@ -58,6 +64,9 @@ export interface VarProResult {
   converged: boolean;
 }
 
+/** Newton steps take over once an LM step lowers the RSS by less than this fraction (our choice). */
+const NEWTON_BELOW = 1e-3;
+
 /** Linear least squares for fixed θ by modified Gram–Schmidt with reorthogonalisation. */
 class LinearSolve {
   readonly q: Float64Array;
@@ -85,7 +94,11 @@ class LinearSolve {
         q[j * n + i] = v;
         norm0 += v * v;
       }
+      // a second pass only where the first cancelled much of the column ("twice is enough":
+      // Parlett, The Symmetric Eigenvalue Problem, 1980, §6-9, with Kahan's factor 1/√2)
+      let norm = norm0;
       for (let pass = 0; pass < 2; pass++) {
+        if (pass === 1 && !(norm < 0.5 * norm0)) break;
         for (let k = 0; k < j; k++) {
           if (!ok[k]) continue;
           let s = 0;
@@ -93,9 +106,10 @@ class LinearSolve {
           r[k * m + j] = r[k * m + j]! + s;
           for (let i = 0; i < n; i++) q[j * n + i] = q[j * n + i]! - s * q[k * n + i]!;
         }
+        if (j === 0) break;
+        norm = 0;
+        for (let i = 0; i < n; i++) norm += q[j * n + i]! ** 2;
       }
-      let norm = 0;
-      for (let i = 0; i < n; i++) norm += q[j * n + i]! ** 2;
       // a column (nearly) inside the span of the others carries no information of its own
       if (!(norm > 1e-24 * Math.max(norm0, 1e-300))) {
         ok[j] = 0;
@@ -222,7 +236,8 @@ export function variableProjection(
   const jtj = new Float64Array(q * q), jtr = new Float64Array(q);
   const sys = new Float64Array(q * q), rhs = new Float64Array(q);
   const l = new Float64Array(q * q), step = new Float64Array(q);
-  const z = new Float64Array(m), qtd = new Float64Array(m);
+  const z = new Float64Array(m), qtd = new Float64Array(q * m), zs = new Float64Array(q * m);
+  const dotR = new Float64Array(q);
   const theta = Float64Array.from(start), trial = new Float64Array(q);
   const solver = new LinearSolve(n, m), trialSolver = new LinearSolve(n, m);
   const clamp = (v: Float64Array) => {
@@ -241,36 +256,44 @@ export function variableProjection(
     for (let i = 0; i < n; i++) rss += s.res[i]! ** 2;
     return rss;
   };
-  /** Golub–Pereyra Jacobian of the projected residual: −[cⱼ P⊥ dₖ + Q R⁻ᵀ eⱼ (dₖ·r)]. */
+  /**
+   * JᵀJ and Jᵀr of the Golub–Pereyra Jacobian of the projected residual,
+   * Jₖ = −[cⱼ P⊥ dₖ + Q R⁻ᵀ eⱼ (dₖ·r)], j = columnOf[k], formed without J itself: Qᵀr = 0 and
+   * P⊥Q = 0 leave JₖᵀJₗ = cⱼcₗ (dₖ·dₗ − (Qᵀdₖ)·(Qᵀdₗ)) + (dₖ·r)(dₗ·r) (R⁻ᵀeⱼ)·(R⁻ᵀeₗ)
+   * and Jₖᵀr = −cⱼ dₖ·r (Golub & Pereyra 1973, eq. 5.4; the same algebra as Kaufman, BIT 15,
+   * 49 (1975), with the second term kept).
+   */
   const jacobian = (s: LinearSolve) => {
     for (let k = 0; k < q; k++) {
-      const j = col[k]!, cj = s.c[j]!;
+      const j = col[k]!;
       let dr = 0;
       for (let i = 0; i < n; i++) {
         const d = sw[i]! * dphi[k * n + i]!;
         jac[k * n + i] = d;
         dr += d * s.res[i]!;
       }
+      dotR[k] = dr;
+      jtr[k] = s.c[j]! * dr;
       for (let jj = 0; jj < m; jj++) {
         let t = 0;
         for (let i = 0; i < n; i++) t += s.q[jj * n + i]! * jac[k * n + i]!;
-        qtd[jj] = t;
+        qtd[k * m + jj] = t;
       }
       s.rInvTransposeUnit(j, z);
-      for (let jj = 0; jj < m; jj++) qtd[jj] = cj * qtd[jj]! - z[jj]! * dr;
-      for (let i = 0; i < n; i++) {
-        let t = cj * jac[k * n + i]!;
-        for (let jj = 0; jj < m; jj++) t -= s.q[jj * n + i]! * qtd[jj]!;
-        jac[k * n + i] = -t;
-      }
+      zs.set(z, k * m);
     }
     for (let k = 0; k < q; k++) {
-      let g = 0;
-      for (let i = 0; i < n; i++) g += jac[k * n + i]! * s.res[i]!;
-      jtr[k] = -g;
+      const ck = s.c[col[k]!]!;
       for (let kk = 0; kk <= k; kk++) {
-        let t = 0;
-        for (let i = 0; i < n; i++) t += jac[k * n + i]! * jac[kk * n + i]!;
+        const ckk = s.c[col[kk]!]!;
+        let dd = 0;
+        for (let i = 0; i < n; i++) dd += jac[k * n + i]! * jac[kk * n + i]!;
+        let qq = 0, zz = 0;
+        for (let jj = 0; jj < m; jj++) {
+          qq += qtd[k * m + jj]! * qtd[kk * m + jj]!;
+          zz += zs[k * m + jj]! * zs[kk * m + jj]!;
+        }
+        const t = ck * ckk * (dd - qq) + dotR[k]! * dotR[kk]! * zz;
         jtj[k * q + kk] = t;
         jtj[kk * q + k] = t;
       }
@@ -287,9 +310,109 @@ export function variableProjection(
   const atBound = (k: number, v: number, dir: number) =>
     (dir < 0 && lower !== undefined && v <= lower[k]!) ||
     (dir > 0 && upper !== undefined && v >= upper[k]!);
+  // Near the optimum, Newton steps with the exact Hessian of the unseparated problem: its
+  // θ-part is Newton's step for the projected functional (the Schur complement of the c-block
+  // is the reduced Hessian where c is optimal), so convergence is quadratic even where a large
+  // residual leaves Gauss–Newton and Levenberg–Marquardt linear (Dennis & Schnabel, Numerical
+  // Methods for Unconstrained Optimization, 1983, §10.1). A step that fails hands back to LM.
+  const pairs: [number, number][] = [];
+  for (let k = 0; k < q; k++) {
+    for (let kk = k; kk < q; kk++) if (col[k] === col[kk]) pairs.push([k, kk]);
+  }
+  const d2phi = model.curvature ? new Float64Array(n * pairs.length) : undefined;
+  const size = q + m;
+  const hess = new Float64Array(size * size), grad = new Float64Array(size);
+  const hl = new Float64Array(size * size), delta = new Float64Array(size);
+  const freeIdx = new Int32Array(size);
+  let newton = false, newtonBelow = NEWTON_BELOW;
+  /** Whether phi, dphi and a hold the basis at θ (a rejected trial overwrites them). */
+  let basisAtTheta = true;
+  /** One Newton step from θ (phi, a, jac and the solver state at θ); the RSS it reaches, or NaN. */
+  const newtonStep = (s: LinearSolve): number => {
+    model.curvature!(theta, phi, d2phi!);
+    let f = 0;
+    for (let k = 0; k < q; k++) {
+      if (theta[k]! > (lower?.[k] ?? -Infinity) && theta[k]! < (upper?.[k] ?? Infinity)) {
+        freeIdx[f++] = k;
+      }
+    }
+    for (let j = 0; j < m; j++) if (s.ok[j]) freeIdx[f++] = q + j;
+    const res = s.res, cs = s.c;
+    const vec = (u: number): [Float64Array, number, number] =>
+      u < q ? [jac, u * n, cs[col[u]!]!] : [a, (u - q) * n, 1];
+    for (let u = 0; u < f; u++) {
+      const [x1, o1, s1] = vec(freeIdx[u]!);
+      let g = 0;
+      for (let i = 0; i < n; i++) g += x1[o1 + i]! * res[i]!;
+      grad[u] = s1 * g;
+      for (let v = 0; v <= u; v++) {
+        const [x2, o2, s2] = vec(freeIdx[v]!);
+        let t = 0;
+        for (let i = 0; i < n; i++) t += x1[o1 + i]! * x2[o2 + i]!;
+        hess[u * f + v] = hess[v * f + u] = s1 * s2 * t;
+      }
+    }
+    // minus Σ rᵢ ∇²mᵢ: within a column's nonlinear parameters, and between θₖ and its cⱼ
+    for (let u = 0; u < f; u++) {
+      const ku = freeIdx[u]!;
+      if (ku >= q) continue;
+      for (let v = 0; v < f; v++) {
+        const kv = freeIdx[v]!;
+        if (kv >= q) {
+          if (kv - q === col[ku]!) {
+            hess[u * f + v] = hess[u * f + v]! - dotR[ku]!;
+            hess[v * f + u] = hess[u * f + v]!;
+          }
+          continue;
+        }
+        if (kv < ku || col[kv] !== col[ku]) continue;
+        const pi = pairs.findIndex(([k1, k2]) => k1 === ku && k2 === kv);
+        let t = 0;
+        for (let i = 0; i < n; i++) t += res[i]! * sw[i]! * d2phi![pi * n + i]!;
+        hess[u * f + v] = hess[u * f + v]! - cs[col[ku]!]! * t;
+        if (v !== u) hess[v * f + u] = hess[u * f + v]!;
+      }
+    }
+    if (!dampedSolve(hess, grad, f, 0, hl, delta)) return NaN;
+    // the Newton decrement gᵀH⁻¹g is the decrease of the RSS the step predicts (Boyd &
+    // Vandenberghe, Convex Optimization, 2004, §9.5.1): below the tolerance θ is the optimum
+    let decrement = 0;
+    for (let u = 0; u < f; u++) decrement += grad[u]! * delta[u]!;
+    if (decrement >= 0 && decrement < tolerance * rss) return Infinity;
+    trial.set(theta);
+    for (let u = 0; u < f; u++) {
+      if (freeIdx[u]! < q) trial[freeIdx[u]!] = theta[freeIdx[u]!]! + delta[u]!;
+    }
+    clamp(trial);
+    return project(trial, spare, true);
+  };
   while (iterations < maxIterations && q > 0) {
     iterations++;
     let improved = false, relative = Infinity, stepSmall = false;
+    if (newton) {
+      const rssTrial = newtonStep(current);
+      if (rssTrial === Infinity) {
+        converged = true;
+        break;
+      }
+      if (Number.isNaN(rssTrial)) newtonBelow /= 10; // not positive definite: not yet near
+      else basisAtTheta = false;
+      if (rssTrial < rss) {
+        basisAtTheta = true;
+        relative = (rss - rssTrial) / Math.max(rss, 1e-300);
+        theta.set(trial);
+        rss = rssTrial;
+        [current, spare] = [spare, current];
+        jacobian(current);
+        if (relative < tolerance) {
+          converged = true;
+          break;
+        }
+        continue;
+      }
+      newton = false;
+      // the failed trial overwrote the basis: LM below starts from θ's JᵀJ, which is kept
+    }
     for (let attempt = 0; attempt < 40; attempt++) {
       // parameters at a bound that the gradient pushes outward are frozen for this step
       sys.set(jtj);
@@ -315,6 +438,7 @@ export function variableProjection(
       }
       clamp(trial);
       const rssTrial = project(trial, spare, true);
+      basisAtTheta = rssTrial < rss;
       if (rssTrial < rss) {
         relative = (rss - rssTrial) / Math.max(rss, 1e-300);
         const rho = predicted > 0 ? (rss - rssTrial) / predicted : 1;
@@ -340,10 +464,12 @@ export function variableProjection(
       converged = true;
       break;
     }
+    if (d2phi && relative < newtonBelow) newton = true;
   }
   if (q === 0) converged = true;
-  // refresh the basis and derivatives at the optimum (the solver holds the last accepted θ)
-  rss = project(theta, current, true);
+  // refresh the basis and derivatives at the optimum when a rejected trial overwrote them
+  // (the solver holds the last accepted θ)
+  if (!basisAtTheta) rss = project(theta, current, true);
   const c = current.c.slice();
   const fitted = new Float64Array(n);
   for (let j = 0; j < m; j++) {

@@ -1,6 +1,11 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
-import { levenbergMarquardt, variableProjection } from "../../lib/numeric/mod.ts";
+import {
+  levenbergMarquardt,
+  type SeparableModel,
+  variableProjection,
+} from "../../lib/numeric/mod.ts";
+import { GAUSS1_CERTIFIED, GAUSS1_CERTIFIED_RSS, GAUSS1_STARTS, GAUSS1_Y } from "./_nist_gauss1.ts";
 import { seededNormal } from "../_random.ts";
 
 // NIST Statistical Reference Datasets, Nonlinear Regression, Misra1a (lower difficulty):
@@ -126,5 +131,136 @@ describe("variableProjection() (Golub & Pereyra 1973)", () => {
     }
     expect(inside / total).toBeGreaterThan(0.58);
     expect(inside / total).toBeLessThan(0.78);
+  });
+});
+
+describe("variableProjection() with exact second derivatives (Newton steps near the optimum)", () => {
+  // Gauss1: b1, b3, b6 linear; θ = [b2, b4, b5, b7, b8] on columns [0, 1, 1, 2, 2]
+  const x = GAUSS1_Y.map((_, i) => i + 1);
+  const n = x.length;
+  const gauss1 = (withCurvature: boolean): SeparableModel => {
+    const model: SeparableModel = {
+      linearCount: 3,
+      columnOf: [0, 1, 1, 2, 2],
+      basis: (t, phi, dphi) => {
+        for (let i = 0; i < n; i++) {
+          const e = Math.exp(-t[0]! * x[i]!);
+          phi[i] = e;
+          if (dphi) dphi[i] = -x[i]! * e;
+          for (let g = 0; g < 2; g++) {
+            const c = t[1 + 2 * g]!, w = t[2 + 2 * g]!, d = x[i]! - c;
+            const v = Math.exp(-(d * d) / (w * w));
+            phi[(1 + g) * n + i] = v;
+            if (dphi) {
+              dphi[(1 + 2 * g) * n + i] = (2 * d * v) / (w * w);
+              dphi[(2 + 2 * g) * n + i] = (2 * d * d * v) / (w * w * w);
+            }
+          }
+        }
+      },
+    };
+    if (withCurvature) {
+      // pairs (0,0), (1,1), (1,2), (2,2), (3,3), (3,4), (4,4): derived by hand, checked below
+      // against central differences of dphi
+      model.curvature = (t, phi, d2) => {
+        for (let i = 0; i < n; i++) {
+          d2[i] = x[i]! * x[i]! * phi[i]!;
+          for (let g = 0; g < 2; g++) {
+            const c = t[1 + 2 * g]!, w = t[2 + 2 * g]!, d = x[i]! - c, v = phi[(1 + g) * n + i]!;
+            const w2 = w * w, u = (d * d) / w2;
+            d2[(1 + 3 * g) * n + i] = (2 * v / w2) * (2 * u - 1);
+            d2[(2 + 3 * g) * n + i] = (4 * d * v / (w2 * w)) * (u - 1);
+            d2[(3 + 3 * g) * n + i] = (2 * u * v / w2) * (2 * u - 3);
+          }
+        }
+      };
+    }
+    return model;
+  };
+  const fitFrom = (start: readonly number[], withCurvature: boolean) =>
+    variableProjection(
+      GAUSS1_Y,
+      gauss1(withCurvature),
+      Float64Array.from([start[1]!, start[3]!, start[4]!, start[6]!, start[7]!]),
+      { tolerance: 1e-14, maxIterations: 500 },
+    );
+
+  it("the Gauss1 second derivatives agree with central differences of the first", () => {
+    const model = gauss1(true);
+    const t = Float64Array.from([0.0105, 67.5, 23.1, 179, 18.4]);
+    const phi = new Float64Array(3 * n), d2 = new Float64Array(7 * n);
+    const up = new Float64Array(5 * n),
+      down = new Float64Array(5 * n),
+      scratch = new Float64Array(3 * n);
+    model.basis(t, phi);
+    model.curvature!(t, phi, d2);
+    const pairs = [[0, 0], [1, 1], [1, 2], [2, 2], [3, 3], [3, 4], [4, 4]];
+    pairs.forEach(([k, l], p) => {
+      const h = 1e-6 * Math.abs(t[l!]!);
+      const tp = t.slice(), tm = t.slice();
+      tp[l!] = tp[l!]! + h;
+      tm[l!] = tm[l!]! - h;
+      model.basis(tp, scratch, up);
+      model.basis(tm, scratch, down);
+      let worst = 0, scale = 0;
+      for (let i = 0; i < n; i++) {
+        const fd = (up[k! * n + i]! - down[k! * n + i]!) / (2 * h);
+        worst = Math.max(worst, Math.abs(fd - d2[p * n + i]!));
+        scale = Math.max(scale, Math.abs(d2[p * n + i]!));
+      }
+      expect(worst).toBeLessThan(1e-6 * scale);
+    });
+  });
+
+  it("Gauss1 (NIST StRD) from both NIST starts: certified b1…b8 and RSS, with and without the Newton steps", () => {
+    for (const start of GAUSS1_STARTS) {
+      for (const withCurvature of [false, true]) {
+        const r = fitFrom(start, withCurvature);
+        expect(r.converged).toBe(true);
+        const b = [r.linear[0]!, ...[0, 1, 2, 3, 4].map((k) => r.nonlinear[k]!)];
+        const order = [0, 1, 3, 4, 6, 7]; // b1 and the nonlinear b's
+        order.forEach((certifiedIndex, k) => {
+          expect(b[k]! / GAUSS1_CERTIFIED[certifiedIndex]!).toBeCloseTo(1, 7);
+        });
+        expect(r.linear[1]! / GAUSS1_CERTIFIED[2]!).toBeCloseTo(1, 7);
+        expect(r.linear[2]! / GAUSS1_CERTIFIED[5]!).toBeCloseTo(1, 7);
+        expect(r.rss / GAUSS1_CERTIFIED_RSS).toBeCloseTo(1, 9);
+      }
+    }
+  });
+
+  it("Newton steps reach the optimum in fewer iterations than LM alone, on Gauss1 and Misra1a", () => {
+    for (const start of GAUSS1_STARTS) {
+      expect(fitFrom(start, true).iterations).toBeLessThan(fitFrom(start, false).iterations);
+    }
+    const misra = (withCurvature: boolean): SeparableModel => ({
+      linearCount: 1,
+      columnOf: [0],
+      basis: (t, phi, dphi) => {
+        MISRA_X.forEach((v, i) => {
+          const e = Math.exp(-t[0]! * v);
+          phi[i] = 1 - e;
+          if (dphi) dphi[i] = v * e;
+        });
+      },
+      ...(withCurvature
+        ? {
+          curvature: (t: Float64Array, _phi: Float64Array, d2: Float64Array) => {
+            MISRA_X.forEach((v, i) => (d2[i] = -v * v * Math.exp(-t[0]! * v)));
+          },
+        }
+        : {}),
+    });
+    for (const b2 of [1e-4, 5e-4]) {
+      const plain = variableProjection(MISRA_Y, misra(false), Float64Array.of(b2), {
+        tolerance: 1e-15,
+      });
+      const newton = variableProjection(MISRA_Y, misra(true), Float64Array.of(b2), {
+        tolerance: 1e-15,
+      });
+      expect(newton.nonlinear[0]! / 5.5015643181e-4).toBeCloseTo(1, 9);
+      expect(newton.rss / 1.2455138894e-1).toBeCloseTo(1, 9);
+      expect(newton.iterations).toBeLessThanOrEqual(plain.iterations);
+    }
   });
 });
