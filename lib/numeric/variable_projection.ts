@@ -67,7 +67,72 @@ export interface VarProResult {
 /** Newton steps take over once an LM step lowers the RSS by less than this fraction (our choice). */
 const NEWTON_BELOW = 1e-3;
 
-/** Linear least squares for fixed θ by modified Gram–Schmidt with reorthogonalisation. */
+/**
+ * out[k] = Σᵢ cols[k·n + i]·v[vo + i] for k < count: four columns a pass, each with its own sum,
+ * so the additions of one pass do not wait on each other.
+ */
+function dots(
+  cols: Float64Array,
+  n: number,
+  count: number,
+  v: Float64Array,
+  vo: number,
+  out: Float64Array,
+): void {
+  let k = 0;
+  for (; k + 3 < count; k += 4) {
+    const o0 = k * n, o1 = o0 + n, o2 = o1 + n, o3 = o2 + n;
+    let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+    for (let i = 0; i < n; i++) {
+      const x = v[vo + i]!;
+      s0 += cols[o0 + i]! * x;
+      s1 += cols[o1 + i]! * x;
+      s2 += cols[o2 + i]! * x;
+      s3 += cols[o3 + i]! * x;
+    }
+    out[k] = s0;
+    out[k + 1] = s1;
+    out[k + 2] = s2;
+    out[k + 3] = s3;
+  }
+  for (; k < count; k++) {
+    const o = k * n;
+    let s0 = 0, s1 = 0;
+    let i = 0;
+    for (; i + 1 < n; i += 2) {
+      s0 += cols[o + i]! * v[vo + i]!;
+      s1 += cols[o + i + 1]! * v[vo + i + 1]!;
+    }
+    if (i < n) s0 += cols[o + i]! * v[vo + i]!;
+    out[k] = s0 + s1;
+  }
+}
+
+/** v[vo + i] −= Σₖ s[k]·cols[k·n + i] for k < count (four columns a pass). */
+function subtractColumns(
+  cols: Float64Array,
+  n: number,
+  count: number,
+  s: Float64Array,
+  v: Float64Array,
+  vo: number,
+): void {
+  let k = 0;
+  for (; k + 3 < count; k += 4) {
+    const o0 = k * n, o1 = o0 + n, o2 = o1 + n, o3 = o2 + n;
+    const s0 = s[k]!, s1 = s[k + 1]!, s2 = s[k + 2]!, s3 = s[k + 3]!;
+    for (let i = 0; i < n; i++) {
+      v[vo + i] = v[vo + i]! -
+        (s0 * cols[o0 + i]! + s1 * cols[o1 + i]! + s2 * cols[o2 + i]! + s3 * cols[o3 + i]!);
+    }
+  }
+  for (; k < count; k++) {
+    const o = k * n, sk = s[k]!;
+    for (let i = 0; i < n; i++) v[vo + i] = v[vo + i]! - sk * cols[o + i]!;
+  }
+}
+
+/** Linear least squares for fixed θ by Gram–Schmidt QR with selective reorthogonalisation. */
 class LinearSolve {
   readonly q: Float64Array;
   readonly r: Float64Array;
@@ -75,6 +140,7 @@ class LinearSolve {
   readonly res: Float64Array;
   readonly qtb: Float64Array;
   readonly ok: Uint8Array;
+  private readonly sums: Float64Array;
   constructor(readonly n: number, readonly m: number) {
     this.q = new Float64Array(n * m);
     this.r = new Float64Array(m * m);
@@ -82,10 +148,11 @@ class LinearSolve {
     this.res = new Float64Array(n);
     this.qtb = new Float64Array(m);
     this.ok = new Uint8Array(m);
+    this.sums = new Float64Array(m);
   }
   /** Factorises A (column-major, weighted) and solves for b; columns that add nothing get c = 0. */
   solve(a: Float64Array, b: Float64Array): void {
-    const { n, m, q, r, c, res, qtb, ok } = this;
+    const { n, m, q, r, c, res, qtb, ok, sums } = this;
     r.fill(0);
     for (let j = 0; j < m; j++) {
       let norm0 = 0;
@@ -94,19 +161,16 @@ class LinearSolve {
         q[j * n + i] = v;
         norm0 += v * v;
       }
-      // a second pass only where the first cancelled much of the column ("twice is enough":
-      // Parlett, The Symmetric Eigenvalue Problem, 1980, §6-9, with Kahan's factor 1/√2)
+      // classical Gram–Schmidt, with a second pass only where the first cancelled much of the
+      // column ("twice is enough": Daniel, Gragg, Kaufman & Stewart, Math. Comp. 30, 772
+      // (1976); Parlett, The Symmetric Eigenvalue Problem, 1980, §6-9, Kahan's factor 1/√2).
+      // Dropped columns are zero in q and contribute nothing.
       let norm = norm0;
-      for (let pass = 0; pass < 2; pass++) {
+      for (let pass = 0; pass < 2 && j > 0; pass++) {
         if (pass === 1 && !(norm < 0.5 * norm0)) break;
-        for (let k = 0; k < j; k++) {
-          if (!ok[k]) continue;
-          let s = 0;
-          for (let i = 0; i < n; i++) s += q[k * n + i]! * q[j * n + i]!;
-          r[k * m + j] = r[k * m + j]! + s;
-          for (let i = 0; i < n; i++) q[j * n + i] = q[j * n + i]! - s * q[k * n + i]!;
-        }
-        if (j === 0) break;
+        dots(q, n, j, q, j * n, sums);
+        for (let k = 0; k < j; k++) r[k * m + j] = r[k * m + j]! + sums[k]!;
+        subtractColumns(q, n, j, sums, q, j * n);
         norm = 0;
         for (let i = 0; i < n; i++) norm += q[j * n + i]! ** 2;
       }
@@ -121,17 +185,9 @@ class LinearSolve {
       r[j * m + j] = d;
       for (let i = 0; i < n; i++) q[j * n + i] = q[j * n + i]! / d;
     }
-    for (let i = 0; i < n; i++) res[i] = b[i]!;
-    for (let j = 0; j < m; j++) {
-      if (!ok[j]) {
-        qtb[j] = 0;
-        continue;
-      }
-      let s = 0;
-      for (let i = 0; i < n; i++) s += q[j * n + i]! * b[i]!;
-      qtb[j] = s;
-      for (let i = 0; i < n; i++) res[i] = res[i]! - s * q[j * n + i]!;
-    }
+    res.set(b.subarray(0, n));
+    dots(q, n, m, b, 0, qtb);
+    subtractColumns(q, n, m, qtb, res, 0);
     for (let j = m - 1; j >= 0; j--) {
       if (!ok[j]) {
         c[j] = 0;
@@ -237,7 +293,7 @@ export function variableProjection(
   const sys = new Float64Array(q * q), rhs = new Float64Array(q);
   const l = new Float64Array(q * q), step = new Float64Array(q);
   const z = new Float64Array(m), qtd = new Float64Array(q * m), zs = new Float64Array(q * m);
-  const dotR = new Float64Array(q);
+  const dotR = new Float64Array(q), gram = new Float64Array(q);
   const theta = Float64Array.from(start), trial = new Float64Array(q);
   const solver = new LinearSolve(n, m), trialSolver = new LinearSolve(n, m);
   const clamp = (v: Float64Array) => {
@@ -274,20 +330,17 @@ export function variableProjection(
       }
       dotR[k] = dr;
       jtr[k] = s.c[j]! * dr;
-      for (let jj = 0; jj < m; jj++) {
-        let t = 0;
-        for (let i = 0; i < n; i++) t += s.q[jj * n + i]! * jac[k * n + i]!;
-        qtd[k * m + jj] = t;
-      }
+      dots(s.q, n, m, jac, k * n, z);
+      qtd.set(z, k * m);
       s.rInvTransposeUnit(j, z);
       zs.set(z, k * m);
     }
     for (let k = 0; k < q; k++) {
       const ck = s.c[col[k]!]!;
+      dots(jac, n, k + 1, jac, k * n, gram);
       for (let kk = 0; kk <= k; kk++) {
         const ckk = s.c[col[kk]!]!;
-        let dd = 0;
-        for (let i = 0; i < n; i++) dd += jac[k * n + i]! * jac[kk * n + i]!;
+        const dd = gram[kk]!;
         let qq = 0, zz = 0;
         for (let jj = 0; jj < m; jj++) {
           qq += qtd[k * m + jj]! * qtd[kk * m + jj]!;
@@ -324,6 +377,8 @@ export function variableProjection(
   const hess = new Float64Array(size * size), grad = new Float64Array(size);
   const hl = new Float64Array(size * size), delta = new Float64Array(size);
   const freeIdx = new Int32Array(size);
+  const mcols = d2phi ? new Float64Array(size * n) : new Float64Array(0),
+    row = new Float64Array(size);
   let newton = false, newtonBelow = NEWTON_BELOW;
   /** Whether phi, dphi and a hold the basis at θ (a rejected trial overwrites them). */
   let basisAtTheta = true;
@@ -338,19 +393,18 @@ export function variableProjection(
     }
     for (let j = 0; j < m; j++) if (s.ok[j]) freeIdx[f++] = q + j;
     const res = s.res, cs = s.c;
-    const vec = (u: number): [Float64Array, number, number] =>
-      u < q ? [jac, u * n, cs[col[u]!]!] : [a, (u - q) * n, 1];
+    // the columns of M (weighted ∂model/∂p): cⱼ·dₖ for θₖ, aⱼ for cⱼ
     for (let u = 0; u < f; u++) {
-      const [x1, o1, s1] = vec(freeIdx[u]!);
-      let g = 0;
-      for (let i = 0; i < n; i++) g += x1[o1 + i]! * res[i]!;
-      grad[u] = s1 * g;
-      for (let v = 0; v <= u; v++) {
-        const [x2, o2, s2] = vec(freeIdx[v]!);
-        let t = 0;
-        for (let i = 0; i < n; i++) t += x1[o1 + i]! * x2[o2 + i]!;
-        hess[u * f + v] = hess[v * f + u] = s1 * s2 * t;
-      }
+      const k = freeIdx[u]!;
+      if (k < q) {
+        const ck = cs[col[k]!]!;
+        for (let i = 0; i < n; i++) mcols[u * n + i] = ck * jac[k * n + i]!;
+      } else mcols.set(a.subarray((k - q) * n, (k - q + 1) * n), u * n);
+    }
+    dots(mcols, n, f, res, 0, grad);
+    for (let u = 0; u < f; u++) {
+      dots(mcols, n, u + 1, mcols, u * n, row);
+      for (let v = 0; v <= u; v++) hess[u * f + v] = hess[v * f + u] = row[v]!;
     }
     // minus Σ rᵢ ∇²mᵢ: within a column's nonlinear parameters, and between θₖ and its cⱼ
     for (let u = 0; u < f; u++) {
