@@ -5,7 +5,7 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import { type ReflectionSettings, transmittanceForPath } from "../optics/path_transmittance.ts";
+import { pathRescaling, type ReflectionSettings } from "../optics/path_transmittance.ts";
 import { colorFromXyz } from "./spectrum_color.ts";
 import { swatchFromXyz } from "./swatch.ts";
 import { tristimulusWeights, weightedXyz } from "./tristimulus.ts";
@@ -69,8 +69,9 @@ export function thicknessSeries(spectrum: Spectrum, options: SeriesOptions = {})
   const { fromMm = 0.5, toMm = 12, steps = 24, illuminant = "D65", observer = "2" } = options;
   const reflection = options.reflection ?? { reflection: "none" };
   const w = tristimulusWeights(spectrum.wavelengthNm, illuminant, observer);
+  const rescale = pathRescaling(spectrum, reflection);
   const at = (pathMm: number) => {
-    const t = transmittanceForPath(spectrum, pathMm, reflection).values;
+    const t = rescale(pathMm).values;
     const xyz = weightedXyz(t, w);
     return { xyz, c: colorFromXyz(xyz, w.white) };
   };

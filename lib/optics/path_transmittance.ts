@@ -7,7 +7,11 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import { spectrumAbsorbance, transmittanceAtPath } from "../spectrum/ordinate.ts";
+import {
+  absorbanceToTransmittance,
+  spectrumAbsorbance,
+  transmittanceAtPath,
+} from "../spectrum/ordinate.ts";
 import {
   type Dispersion,
   dispersionIndex,
@@ -87,43 +91,81 @@ export function transmittanceForPath(
   pathMm: number | undefined,
   settings: ReflectionSettings = { reflection: "none" },
 ): { values: Float64Array<ArrayBuffer>; warnings: string[] } {
-  const floor = photometricFloorWarning(spectrum, pathMm);
-  if (settings.reflection === "none") {
-    return { values: transmittanceAtPath(spectrum, pathMm), warnings: floor };
-  }
-  const { r, warnings } = surfaceReflectance(
-    spectrum.wavelengthNm,
-    settings,
-    spectrum.polarisation,
-  );
-  const surfaces = settings.surfaces ?? true;
+  return pathRescaling(spectrum, settings)(pathMm);
+}
+
+/**
+ * {@linkcode transmittanceForPath} for many paths of one spectrum: what does not depend on the
+ * path (the measured absorbance, R(λ), the internal absorption per mm) is worked out once;
+ * each call gives the same values and warnings as transmittanceForPath.
+ *
+ * @throws {RangeError} When a needed thickness, host or index is missing (from the first call
+ *   that needs it, as transmittanceForPath).
+ */
+export function pathRescaling(
+  spectrum: Spectrum,
+  settings: ReflectionSettings = { reflection: "none" },
+): (pathMm: number | undefined) => { values: Float64Array<ArrayBuffer>; warnings: string[] } {
   const d = spectrum.thicknessMm;
-  const path = pathMm ?? d;
-  let internalPerMm: Float64Array;
-  if (spectrum.quantity === "alpha") {
-    internalPerMm = spectrum.values.map((alpha) => -alpha / 10);
-  } else {
-    if (d === undefined || !(d > 0)) {
-      throw new NeedsValueError(
-        `Cannot separate surfaces from "${spectrum.meta.sample}": the measured thickness is not known`,
-        "thickness",
+  if (settings.reflection === "none") {
+    let absorbance: Float64Array<ArrayBuffer> | undefined;
+    const rescalable = spectrum.quantity !== "reflectance" && spectrum.quantity !== "alpha" &&
+      d !== undefined && d > 0;
+    return (pathMm) => {
+      const floor = photometricFloorWarning(spectrum, pathMm);
+      if (!rescalable || pathMm === undefined || !(pathMm >= 0)) {
+        return { values: transmittanceAtPath(spectrum, pathMm), warnings: floor };
+      }
+      // as transmittanceAtPath: Beer–Lambert on the measured absorbance
+      absorbance ??= spectrumAbsorbance(spectrum);
+      const scale = pathMm / d!;
+      return {
+        values: absorbance.map((a) => absorbanceToTransmittance(a * scale)),
+        warnings: floor,
+      };
+    };
+  }
+  let prepared: { r: Float64Array; warnings: string[]; internalPerMm: Float64Array } | undefined;
+  const prepare = () => {
+    const { r, warnings } = surfaceReflectance(
+      spectrum.wavelengthNm,
+      settings,
+      spectrum.polarisation,
+    );
+    let internalPerMm: Float64Array;
+    if (spectrum.quantity === "alpha") {
+      internalPerMm = spectrum.values.map((alpha) => -alpha / 10);
+    } else {
+      if (d === undefined || !(d > 0)) {
+        throw new NeedsValueError(
+          `Cannot separate surfaces from "${spectrum.meta.sample}": the measured thickness is not known`,
+          "thickness",
+        );
+      }
+      const measured = spectrumAbsorbance(spectrum).map((a) => 10 ** -a);
+      internalPerMm = measured.map((t, i) =>
+        Math.log(Math.max(internalFromSlab(t, r[i]!), 1e-300)) / d
       );
     }
-    const measured = spectrumAbsorbance(spectrum).map((a) => 10 ** -a);
-    internalPerMm = measured.map((t, i) =>
-      Math.log(Math.max(internalFromSlab(t, r[i]!), 1e-300)) / d
-    );
-  }
-  if (path === undefined) {
-    throw new RangeError(
-      `Cannot compute transmittance of "${spectrum.meta.sample}": no path length given`,
-    );
-  }
-  const values = internalPerMm.map((k, i) => {
-    const x = Math.exp(k * path);
-    return surfaces ? slabTransmittance(x, r[i]!) : x;
-  });
-  return { values, warnings: [...floor, ...warnings] };
+    return { r, warnings, internalPerMm };
+  };
+  const surfaces = settings.surfaces ?? true;
+  return (pathMm) => {
+    const floor = photometricFloorWarning(spectrum, pathMm);
+    prepared ??= prepare();
+    const { r, warnings, internalPerMm } = prepared;
+    const path = pathMm ?? d;
+    if (path === undefined) {
+      throw new RangeError(
+        `Cannot compute transmittance of "${spectrum.meta.sample}": no path length given`,
+      );
+    }
+    const values = Float64Array.from(internalPerMm, (k, i) => {
+      const x = Math.exp(k * path);
+      return surfaces ? slabTransmittance(x, r[i]!) : x;
+    });
+    return { values, warnings: [...floor, ...warnings] };
+  };
 }
 
 /** Measured T below which a point is near the photometric floor (common practice: 0.2 %). */
