@@ -1,6 +1,10 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
-import { transmittanceForPath, unpolarisedTransmittance } from "../../lib/optics/mod.ts";
+import {
+  pathRescaling,
+  transmittanceForPath,
+  unpolarisedTransmittance,
+} from "../../lib/optics/mod.ts";
 import type { Spectrum } from "../../lib/spectrum/mod.ts";
 
 const slab = (
@@ -13,6 +17,32 @@ const slab = (
   quantity,
   thicknessMm,
   meta: { sample: "slab" },
+});
+
+describe("pathRescaling(): one spectrum, many paths", () => {
+  it("closed form (Beer–Lambert, Fresnel slab): each path as a fresh call, in any order", () => {
+    const s = slab([0.8, 0.4, 0.1, 0.6, 0.84], 2);
+    for (
+      const settings of [
+        { reflection: "none" as const },
+        { reflection: "host" as const, host: "corundum" },
+        { reflection: "host" as const, n: 1.76, surfaces: false },
+      ]
+    ) {
+      const rescale = pathRescaling(s, settings);
+      for (const path of [3, 0.5, 6, 2, 3]) {
+        const fresh = transmittanceForPath(s, path, settings);
+        expect(Array.from(rescale(path).values)).toEqual(Array.from(fresh.values));
+        expect(rescale(path).warnings).toEqual(fresh.warnings);
+      }
+      // A(2d) = 2·A(d) for the internal part (Beer–Lambert) through the reused rescaler
+      if (settings.reflection === "none") {
+        const a3 = rescale(3).values, a6 = rescale(6).values;
+        a3.forEach((t, i) => expect(-Math.log10(a6[i]!)).toBeCloseTo(-2 * Math.log10(t), 12));
+      }
+    }
+    expect(() => pathRescaling(s)(-1)).toThrow(RangeError);
+  });
 });
 
 describe("transmittanceForPath()", () => {
