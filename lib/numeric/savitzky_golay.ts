@@ -13,6 +13,14 @@ export function savitzkyGolayWeights(
   order: number,
   derivative = 0,
 ): Float64Array {
+  return cachedWeights(halfWidth, order, derivative).slice();
+}
+
+function computeWeights(
+  halfWidth: number,
+  order: number,
+  derivative = 0,
+): Float64Array {
   const m = order + 1;
   const size = 2 * halfWidth + 1;
   // A^T A for the Vandermonde matrix over offsets −h…h
@@ -50,6 +58,20 @@ export function savitzkyGolayWeights(
   return w;
 }
 
+/** Weights already worked out, by half-width, order and derivative (a few per run). */
+const WEIGHTS = new Map<string, Float64Array>();
+
+function cachedWeights(halfWidth: number, order: number, derivative: number): Float64Array {
+  const key = `${halfWidth}/${order}/${derivative}`;
+  let w = WEIGHTS.get(key);
+  if (!w) {
+    if (WEIGHTS.size >= 64) WEIGHTS.clear();
+    w = computeWeights(halfWidth, order, derivative);
+    WEIGHTS.set(key, w);
+  }
+  return w;
+}
+
 /** Applies SG weights to uniformly spaced values (edges use the nearest full window). */
 export function savitzkyGolay(
   values: ArrayLike<number>,
@@ -59,7 +81,7 @@ export function savitzkyGolay(
   step = 1,
 ): Float64Array {
   const n = values.length;
-  const w = savitzkyGolayWeights(halfWidth, order, derivative);
+  const w = cachedWeights(halfWidth, order, derivative);
   const out = new Float64Array(n);
   const scale = step ** derivative;
   for (let i = 0; i < n; i++) {
