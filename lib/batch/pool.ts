@@ -1,7 +1,8 @@
 /**
  * A fixed pool of Deno Workers running the analysis of one file per job, sized to the machine.
- * Each job has a time budget: a worker that runs past it, or dies, is terminated and replaced,
- * and only its file fails. A memory guard watches the process's resident size: past the cap,
+ * Each job has a time budget, counted from when its worker is up (a fresh worker loads its
+ * modules first, which on a busy machine can take seconds): a worker that runs past it, or
+ * dies, is terminated and replaced, and only its file fails. A memory guard watches the process's resident size: past the cap,
  * the job running longest fails ("memory limit") and the others go on.
  *
  * Limitation (Deno 2.9): `Worker.terminate()` does not interrupt a worker busy in synchronous
@@ -27,15 +28,20 @@ interface Job {
 
 interface Running extends Job {
   id: number;
-  timer: ReturnType<typeof setTimeout>;
+  timer: ReturnType<typeof setTimeout> | undefined;
   /** When the job started, ms since the epoch. */
   startedAt: number;
 }
 
 interface Slot {
   worker: Worker;
+  /** Whether the worker has said it is up (its modules loaded). */
+  ready: boolean;
   job?: Running | undefined;
 }
+
+/** Longest a fresh worker may take to load its modules before its job fails, ms (our choice). */
+const START_BUDGET_MS = 60_000;
 
 /** How a pool runs its jobs. */
 export interface PoolOptions {
@@ -76,8 +82,14 @@ export class WorkerPool {
   #spawn(): Slot {
     const slot: Slot = {
       worker: new Worker(new URL("./worker.ts", import.meta.url).href, { type: "module" }),
+      ready: false,
     };
-    slot.worker.onmessage = (e: MessageEvent<{ id: number } & JobOutcome>) => {
+    slot.worker.onmessage = (e: MessageEvent<({ id: number } & JobOutcome) | { ready: true }>) => {
+      if ("ready" in e.data) {
+        slot.ready = true;
+        if (slot.job) this.#arm(slot, this.#timeoutMs);
+        return;
+      }
       const job = slot.job;
       if (!job || job.id !== e.data.id) return;
       const { id: _id, ...outcome } = e.data;
@@ -168,13 +180,27 @@ export class WorkerPool {
     }
   }
 
+  /** (Re)starts the running job's clock: the analysis budget, or the start-up budget. */
+  #arm(slot: Slot, ms: number) {
+    const job = slot.job!;
+    clearTimeout(job.timer);
+    job.startedAt = Date.now();
+    job.timer = setTimeout(
+      () =>
+        this.#stop(
+          slot,
+          slot.ready
+            ? `analysis took longer than ${this.#timeoutMs / 1000} s (stopped)`
+            : `the worker did not start within ${START_BUDGET_MS / 1000} s`,
+        ),
+      ms,
+    );
+  }
+
   #start(slot: Slot, job: Job) {
     const id = this.#nextId++;
-    const timer = setTimeout(
-      () => this.#stop(slot, `analysis took longer than ${this.#timeoutMs / 1000} s (stopped)`),
-      this.#timeoutMs,
-    );
-    slot.job = { ...job, id, timer, startedAt: Date.now() };
+    slot.job = { ...job, id, timer: undefined, startedAt: Date.now() };
+    this.#arm(slot, slot.ready ? this.#timeoutMs : Math.max(this.#timeoutMs, START_BUDGET_MS));
     this.#updateGuard();
     slot.worker.postMessage({ id, file: job.file, bytes: job.bytes, settings: job.settings }, [
       job.bytes.buffer,

@@ -35,3 +35,6 @@ self.onmessage = (event: MessageEvent<WorkerJob>) => {
     self.postMessage({ id, ok: false, error });
   }
 };
+
+// the modules are loaded: the pool counts a job's time budget from here
+self.postMessage({ ready: true });
