@@ -21,9 +21,11 @@ import type { Lab } from "./spaces.ts";
 const DEG = Math.PI / 180;
 const POW25_7 = 6103515625; // 25^7
 const POW50_7 = 128 * POW25_7; // 50^7 = 2^7·25^7
-const COS30 = Math.cos(30 * DEG), SIN30 = Math.sin(30 * DEG);
-const COS6 = Math.cos(6 * DEG), SIN6 = Math.sin(6 * DEG);
-const COS63 = Math.cos(63 * DEG), SIN63 = Math.sin(63 * DEG);
+// T (eq. 15) = 1 − 0.17cos(h̄′ − 30°) + 0.24cos 2h̄′ + 0.32cos(3h̄′ + 6°) − 0.2cos(4h̄′ − 63°),
+// each cos(nh̄′ ± φ) expanded as cos nh̄′·cos φ ∓ sin nh̄′·sin φ: the products of the constants
+const T1C = -0.17 * Math.cos(30 * DEG), T1S = -0.17 * Math.sin(30 * DEG);
+const T3C = 0.32 * Math.cos(6 * DEG), T3S = -0.32 * Math.sin(6 * DEG);
+const T4C = -0.2 * Math.cos(63 * DEG), T4S = -0.2 * Math.sin(63 * DEG);
 const COS275 = Math.cos(275 * DEG), SIN275 = Math.sin(275 * DEG);
 /** Below this |u₁ + u₂|² (|Δh′| above ≈ 151°) the mean hue is taken from the literal branches. */
 const SUM_FLOOR2 = 0.25;
@@ -42,12 +44,16 @@ const X0 = rotation.ROTATION_X0, HALF_PER_UNIT = rotation.ROTATION_HALF_PER_UNIT
  */
 export function ciede2000(lab1: Lab, lab2: Lab, kL: number, kC: number, kH: number): number {
   const L1 = lab1.L, a1 = lab1.a, b1 = lab1.b, L2 = lab2.L, a2 = lab2.a, b2 = lab2.b;
-  const bb1 = b1 * b1, bb2 = b2 * b2;
-  const s = Math.sqrt(a1 * a1 + bb1) + Math.sqrt(a2 * a2 + bb2);
+  const aa1 = a1 * a1, aa2 = a2 * a2, bb1 = b1 * b1, bb2 = b2 * b2;
+  const s = Math.sqrt(aa1 + bb1) + Math.sqrt(aa2 + bb2);
   const s2 = s * s, s7 = (s2 * s) * (s2 * s2);
-  const g = 1.5 - 0.5 * Math.sqrt(s7 / (s7 + POW50_7)); // 1 + G (eq. 4)
-  const ap1 = g * a1, ap2 = g * a2;
-  const cp1 = Math.sqrt(ap1 * ap1 + bb1), cp2 = Math.sqrt(ap2 * ap2 + bb2);
+  // 1 + G = 1.5 − ½√q (eq. 4); a′ and C′² = (1 + G)²a² + b² are formed around √q so that
+  // only one multiplication and one subtraction follow the root
+  const q = s7 / (s7 + POW50_7), rq = Math.sqrt(q);
+  const ap1 = 1.5 * a1 - 0.5 * a1 * rq, ap2 = 1.5 * a2 - 0.5 * a2 * rq;
+  const g2 = 2.25 + 0.25 * q; // (1 + G)² = 2.25 + ¼q − 1.5√q
+  const cp1 = Math.sqrt((g2 * aa1 + bb1) - 1.5 * aa1 * rq);
+  const cp2 = Math.sqrt((g2 * aa2 + bb2) - 1.5 * aa2 * rq);
   const pp = cp1 * cp2;
   // S = C′₁C′₂(u₁ + u₂) along the mean hue
   const sx = ap1 * cp2 + ap2 * cp1, sy = b1 * cp2 + b2 * cp1;
@@ -82,8 +88,8 @@ export function ciede2000(lab1: Lab, lab2: Lab, kL: number, kC: number, kH: numb
   const c2h = ch * ch - sh * sh, s2h = 2 * sh * ch;
   const c3h = ch * (4 * ch * ch - 3), s3h = sh * (3 - 4 * sh * sh);
   const c4h = c2h * c2h - s2h * s2h, s4h = 2 * s2h * c2h;
-  const t = 1 - 0.17 * (ch * COS30 + sh * SIN30) + 0.24 * c2h +
-    0.32 * (c3h * COS6 - s3h * SIN6) - 0.2 * (c4h * COS63 + s4h * SIN63);
+  const t = 1 + (T1C * ch + T1S * sh) + 0.24 * c2h + (T3C * c3h + T3S * s3h) +
+    (T4C * c4h + T4S * s4h);
   const dh = kH * (1 + 0.015 * cBarP * t);
   // ΔL′/(kL·SL), ΔC′/(kC·SC), ΔH′/(kH·SH) times dl·dc·dh: ql, qc, hq·√(C′₁C′₂)
   const ql = dLp * r20 * dc * dh, qc = dCp * dl * dh, hq = hc * dl * dc;
