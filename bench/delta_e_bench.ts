@@ -71,7 +71,7 @@ function ratios(peer: () => void, ours: () => void, rounds: number) {
     return performance.now() - t0;
   };
   for (let i = 0; i < 10; i++) time(peer), time(ours);
-  const each: number[] = [];
+  const each: number[] = [], peerTimes: number[] = [], ourTimes: number[] = [];
   let totalPeer = 0, totalOurs = 0;
   for (let r = 0; r < rounds; r++) {
     let p = Infinity, o = Infinity;
@@ -83,15 +83,25 @@ function ratios(peer: () => void, ours: () => void, rounds: number) {
       o = Math.min(o, to);
     }
     each.push(p / o);
+    peerTimes.push(p);
+    ourTimes.push(o);
   }
-  each.sort((x, y) => x - y);
-  const at = (q: number) => each[Math.round(q * (rounds - 1))]!;
-  return { median: at(0.5), low: at(0.25), high: at(0.75), total: totalPeer / totalOurs };
+  const at = (list: number[], q: number) =>
+    [...list].sort((x, y) => x - y)[Math.round(q * (rounds - 1))]!;
+  const perPair = (list: number[]) => (at(list, 0.5) * 1e6) / PAIRS; // ns
+  return {
+    median: at(each, 0.5),
+    low: at(each, 0.25),
+    high: at(each, 0.75),
+    total: totalPeer / totalOurs,
+    peerNs: perPair(peerTimes),
+    oursNs: perPair(ourTimes),
+  };
 }
 const ROUNDS = 41;
 const show = (r: ReturnType<typeof ratios>) =>
   `${r.median.toFixed(1)}× (quartiles ${r.low.toFixed(1)}–${r.high.toFixed(1)}×; ` +
-  `all runs summed ${r.total.toFixed(1)}×)`;
+  `all runs summed ${r.total.toFixed(1)}×; ${r.oursNs.toFixed(0)} ns vs ${r.peerNs.toFixed(0)} ns)`;
 const objectRatio = ratios(colorjsRun, objectRun, ROUNDS);
 const packedRatio = ratios(colorjsRun, packedRun, ROUNDS);
 console.log(

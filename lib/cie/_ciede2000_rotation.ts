@@ -7,10 +7,10 @@
  * function of v ∈ [0, 2]. The sides differ only in where the published formula makes it zero:
  * below 275° (side 0) it vanishes to double precision beyond 275° − 25°·√40 ≈ 116.9°, where
  * 30°·exp(−40) < 1e-16°; above 275° (side 1) it drops to zero at h̄′ = 360°, where h̄′ wraps to
- * 0° (the formula's own jump), that is at v = 1 − cos 85°. The table is built once at load by
- * interpolation of the formula at the Chebyshev points of pieces 1/32 wide in v, one piece
- * boundary placed exactly at 1 − cos 85°; degree 12 makes the interpolation error below 2e-17 on
- * every piece, and the table agrees with the formula to about 2e-16 (1e-15 is tested).
+ * 0° (the formula's own jump), that is at v = 1 − cos 85°. The table is built once, on first
+ * use, by interpolation of the formula at the Chebyshev points of pieces 1/32 wide in v, one
+ * piece boundary placed exactly at 1 − cos 85°; degree 12 makes the interpolation error below
+ * 2e-17 on every piece, and the table agrees with the formula to about 2e-16 (1e-15 is tested).
  * `test/cie/delta_e_test.ts` checks the table against the formula evaluated directly.
  *
  * @module
@@ -71,9 +71,17 @@ function piece(from: number, to: number): Float64Array {
 export const ROTATION_COEFFICIENTS = new Float64Array(ROTATION_PIECES * ROTATION_STRIDE);
 /** 1 where the rotation term is live, 0 where the formula makes it zero: side·PIECES + piece. */
 export const ROTATION_SIDE_MASK = new Float64Array(2 * ROTATION_PIECES);
-for (let p = 0; p < ROTATION_PIECES; p++) {
-  const from = (p - ROTATION_X0) / PER_UNIT, to = from + 1 / PER_UNIT;
-  ROTATION_SIDE_MASK[p] = from < V_FAR ? 1 : 0;
-  ROTATION_SIDE_MASK[ROTATION_PIECES + p] = p < WRAP_PIECE ? 1 : 0;
-  if (from < V_FAR) ROTATION_COEFFICIENTS.set(piece(from, to), p * ROTATION_STRIDE);
+
+/**
+ * Fills {@linkcode ROTATION_COEFFICIENTS} and {@linkcode ROTATION_SIDE_MASK} (idempotent). Called
+ * on the first ΔE00 rather than at load: building takes 1–3 ms, which every command that merely
+ * imports the colour modules would pay at start-up.
+ */
+export function fillRotationTable(): void {
+  for (let p = 0; p < ROTATION_PIECES; p++) {
+    const from = (p - ROTATION_X0) / PER_UNIT, to = from + 1 / PER_UNIT;
+    ROTATION_SIDE_MASK[p] = from < V_FAR ? 1 : 0;
+    ROTATION_SIDE_MASK[ROTATION_PIECES + p] = p < WRAP_PIECE ? 1 : 0;
+    if (from < V_FAR) ROTATION_COEFFICIENTS.set(piece(from, to), p * ROTATION_STRIDE);
+  }
 }

@@ -10,6 +10,7 @@ import {
   xyzToLab,
 } from "../../lib/cie/mod.ts";
 import {
+  fillRotationTable,
   ROTATION_COEFFICIENTS,
   ROTATION_HALF_PER_UNIT,
   ROTATION_PIECES,
@@ -315,6 +316,7 @@ describe("deltaE2000() on the branch edges", () => {
 
   it("the rotation term's hue factor table equals sin(2Δθ) of Sharma et al. (2005) eq. 18 within 1e-15", () => {
     // Evaluated here by Horner's rule on the stored coefficients, as 1 − cos(h̄′ − 275°) = v.
+    fillRotationTable();
     const perUnit = 2 * ROTATION_HALF_PER_UNIT;
     let worst = 0;
     for (let k = 0; k < 200_000; k++) {
