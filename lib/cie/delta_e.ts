@@ -6,12 +6,7 @@
  * @module
  */
 import type { Lab } from "./spaces.ts";
-import { ciede2000Run } from "./_ciede2000.ts";
-
-/** Reused scratch for {@linkcode deltaE2000}: one call at a time, so nothing is allocated. */
-const FIRST = new Float64Array(3), SECOND = new Float64Array(3);
-const FACTORS = new Float64Array(3), RESULT = new Float64Array(1);
-const REFERENCE_FACTORS = Float64Array.of(1, 1, 1);
+import { ciede2000 } from "./_ciede2000.ts";
 
 const DEG = Math.PI / 180;
 
@@ -51,8 +46,9 @@ export interface DeltaE2000Options {
 }
 
 /**
- * CIEDE2000 colour difference ΔE00 (Sharma, Wu & Dalal 2005, eq. 1–25). Allocation-free; the
- * hue terms use exact trigonometric identities (see `_ciede2000.ts`).
+ * CIEDE2000 colour difference ΔE00 (Sharma, Wu & Dalal 2005, eq. 1–25). Allocation-free but for
+ * the result; the hue terms use exact identities and a table for the rotation term (see
+ * `_ciede2000.ts`).
  *
  * @example Sharma et al. (2005) Table 1, pair 1
  * ```ts
@@ -62,21 +58,8 @@ export interface DeltaE2000Options {
  * ```
  */
 export function deltaE2000(lab1: Lab, lab2: Lab, options?: DeltaE2000Options): number {
-  FIRST[0] = lab1.L;
-  FIRST[1] = lab1.a;
-  FIRST[2] = lab1.b;
-  SECOND[0] = lab2.L;
-  SECOND[1] = lab2.a;
-  SECOND[2] = lab2.b;
-  let factors = REFERENCE_FACTORS;
-  if (options !== undefined) {
-    factors = FACTORS;
-    factors[0] = options.kL ?? 1;
-    factors[1] = options.kC ?? 1;
-    factors[2] = options.kH ?? 1;
-  }
-  ciede2000Run(FIRST, SECOND, factors, RESULT, 0, 1);
-  return RESULT[0]!;
+  if (options === undefined) return ciede2000(lab1, lab2, 1, 1, 1);
+  return ciede2000(lab1, lab2, options.kL ?? 1, options.kC ?? 1, options.kH ?? 1);
 }
 
 /** CMC(l:c) colour difference, lab1 the reference; l = 2, c = 1 (acceptability) by default. */

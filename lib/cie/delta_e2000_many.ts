@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { ciede2000Run } from "./_ciede2000.ts";
+import { ciede2000 } from "./_ciede2000.ts";
 import type { DeltaE2000Options } from "./delta_e.ts";
 
 /**
@@ -43,7 +43,17 @@ export function deltaE2000Many(
   if (result.length < n) {
     throw new RangeError(`Cannot write ${n} differences into an array of ${result.length}`);
   }
-  const factors = Float64Array.of(options?.kL ?? 1, options?.kC ?? 1, options?.kH ?? 1);
-  ciede2000Run(lab1, lab2, factors, result, 0, n);
+  const kL = options?.kL ?? 1, kC = options?.kC ?? 1, kH = options?.kH ?? 1;
+  // The core reads {L, a, b} objects; two reused ones carry the packed values (no allocation).
+  const first = { L: 0.5, a: 0.5, b: 0.5 }, second = { L: 0.5, a: 0.5, b: 0.5 };
+  for (let i = 0, j = 0; i < n; i++, j += 3) {
+    first.L = lab1[j]!;
+    first.a = lab1[j + 1]!;
+    first.b = lab1[j + 2]!;
+    second.L = lab2[j]!;
+    second.a = lab2[j + 1]!;
+    second.b = lab2[j + 2]!;
+    result[i] = ciede2000(first, second, kL, kC, kH);
+  }
   return result;
 }

@@ -9,6 +9,15 @@ import {
   deltaECmc,
   xyzToLab,
 } from "../../lib/cie/mod.ts";
+import {
+  fillRotationTable,
+  ROTATION_COEFFICIENTS,
+  ROTATION_HALF_PER_UNIT,
+  ROTATION_PIECES,
+  ROTATION_SIDE_MASK,
+  ROTATION_STRIDE,
+  ROTATION_X0,
+} from "../../lib/cie/_ciede2000_rotation.ts";
 
 // Sharma, Wu & Dalal (2005), Color Res. Appl. 30(1):21–30, Table 1 (kL = kC = kH = 1).
 const SHARMA: number[][] = [
@@ -112,7 +121,13 @@ describe("ΔE*ab, CIE94 and CMC(l:c)", () => {
  * Independent route: a literal implementation of Sharma, Wu & Dalal (2005) eq. 1–25 with one
  * trigonometric call per angle (the construction used before the allocation-free core).
  */
-function literalDeltaE2000(l1: { L: number; a: number; b: number }, l2: typeof l1): number {
+function literalDeltaE2000(
+  l1: { L: number; a: number; b: number },
+  l2: typeof l1,
+  kL = 1,
+  kC = 1,
+  kH = 1,
+): number {
   const DEG = Math.PI / 180;
   const c1 = Math.hypot(l1.a, l1.b), c2 = Math.hypot(l2.a, l2.b);
   const cBar7 = ((c1 + c2) / 2) ** 7;
@@ -146,7 +161,7 @@ function literalDeltaE2000(l1: { L: number; a: number; b: number }, l2: typeof l
   const sL = 1 + (0.015 * l50) / Math.sqrt(20 + l50);
   const sC = 1 + 0.045 * cBarP, sH = 1 + 0.015 * cBarP * t;
   const rT = -Math.sin(2 * dTheta * DEG) * rC;
-  const tl = (l2.L - l1.L) / sL, tc = (cp2 - cp1) / sC, th = dHp / sH;
+  const tl = (l2.L - l1.L) / (kL * sL), tc = (cp2 - cp1) / (kC * sC), th = dHp / (kH * sH);
   return Math.sqrt(tl * tl + tc * tc + th * th + rT * tc * th);
 }
 
@@ -215,6 +230,114 @@ describe("deltaE2000() allocation-free core", () => {
     // closed form: equal a, b → ΔE00 = |ΔL′| / (kL·SL), SL = 1 + 0.015 (L̄ − 50)² / √(20 + (L̄ − 50)²)
     const d = deltaE2000(lab(40, 10, 10), lab(60, 10, 10), { kL: 2 });
     expect(d).toBeCloseTo(20 / 2, 12);
+  });
+});
+
+/**
+ * A million seeded pairs, a tenth of them of each kind: tolerancing pairs, any two colours, and
+ * pairs on the branch edges of the formula and of the core (neutral colours, |Δh′| near 180° and
+ * near the core's 151° switch, mean hue near 0°/360°, near 275°, at the edge where the rotation
+ * term vanishes (275° − 25°·√40) and near 85°/265°, equal hues).
+ */
+function edgePairs(count: number) {
+  const rnd = seeded(20261202);
+  const polar = (L: number, c: number, hDeg: number) => ({
+    L,
+    a: c * Math.cos((hDeg * Math.PI) / 180),
+    b: c * Math.sin((hDeg * Math.PI) / 180),
+  });
+  const near = (scale: number) => (rnd() - 0.5) * scale * 10 ** (-12 * rnd());
+  const farEdge = 275 - 25 * Math.sqrt(40);
+  const pairs: [{ L: number; a: number; b: number }, { L: number; a: number; b: number }][] = [];
+  for (let i = 0; i < count; i++) {
+    const L1 = 100 * rnd(), L2 = 100 * rnd(), c1 = 130 * rnd() ** 2, c2 = 130 * rnd() ** 2;
+    const h1 = 360 * rnd();
+    let p = polar(L1, c1, h1), q: typeof p;
+    switch (i % 10) {
+      case 0: {
+        p = { L: 100 * rnd(), a: 256 * rnd() - 128, b: 256 * rnd() - 128 };
+        q = { L: p.L + 8 * rnd() - 4, a: p.a + 12 * rnd() - 6, b: p.b + 12 * rnd() - 6 };
+        break;
+      }
+      case 1:
+        q = polar(L2, c2, 360 * rnd());
+        break;
+      case 2:
+        q = polar(L2, c2, h1 + 180 + near(1)); // |Δh′| ≈ 180°
+        break;
+      case 3:
+        q = polar(L2, c2, -h1 + near(10)); // h̄′ ≈ 0°/360°
+        break;
+      case 4:
+        q = polar(L2, c2, 550 - h1 + (rnd() - 0.5) * 40); // h̄′ near 275°
+        break;
+      case 5:
+        q = polar(L2, c2, 2 * farEdge - h1 + near(1)); // h̄′ at the rotation term's far edge
+        break;
+      case 6:
+        q = polar(L2, c2, h1 + near(1)); // equal hues
+        break;
+      case 7: // neutral or nearly neutral
+        p = polar(L1, rnd() < 0.5 ? 0 : c1 * 1e-6 * rnd(), h1);
+        q = polar(L2, rnd() < 0.3 ? 0 : c2, 360 * rnd());
+        break;
+      case 8:
+        q = polar(L2, c2, h1 + 180 * (rnd() < 0.5 ? 1 : -1) + (rnd() - 0.5) * 70); // |Δh′| ≈ 151°
+        break;
+      default:
+        q = polar(L2, c2, 170 - h1 + near(10)); // h̄′ ≈ 85° or 265°
+    }
+    if (i % 97 === 0) p.b = 0;
+    if (i % 89 === 0) q.a = 0;
+    pairs.push(i % 2 ? [q, p] : [p, q]);
+  }
+  return pairs;
+}
+
+describe("deltaE2000() on the branch edges", () => {
+  it("equals the literal implementation of Sharma et al. (2005) eq. 1–25 within 1e-12 on 1,000,000 seeded pairs", () => {
+    let worst = 0;
+    for (const [p1, p2] of edgePairs(1_000_000)) {
+      worst = Math.max(worst, Math.abs(deltaE2000(p1, p2) - literalDeltaE2000(p1, p2)));
+    }
+    expect(worst).toBeLessThan(1e-12);
+  });
+
+  it("with parametric factors equals the literal implementation within 1e-12 on 20,000 pairs", () => {
+    const rnd = seeded(7);
+    let worst = 0;
+    for (const [p1, p2] of edgePairs(20_000)) {
+      const kL = 0.5 + 2 * rnd(), kC = 0.5 + 2 * rnd(), kH = 0.5 + 2 * rnd();
+      const d = deltaE2000(p1, p2, { kL, kC, kH });
+      worst = Math.max(worst, Math.abs(d - literalDeltaE2000(p1, p2, kL, kC, kH)));
+    }
+    expect(worst).toBeLessThan(1e-12);
+  });
+
+  it("the rotation term's hue factor table equals sin(2Δθ) of Sharma et al. (2005) eq. 18 within 1e-15", () => {
+    // Evaluated here by Horner's rule on the stored coefficients, as 1 − cos(h̄′ − 275°) = v.
+    fillRotationTable();
+    const perUnit = 2 * ROTATION_HALF_PER_UNIT;
+    let worst = 0;
+    for (let k = 0; k < 200_000; k++) {
+      // 90° … 360° (the core takes h̄′ within 1e-6° of 360° from the literal branches)
+      const hBar = 90 + ((270 - 1e-6) * k) / 200_000;
+      const v = 1 - Math.cos(((hBar - 275) * Math.PI) / 180);
+      const x = v * perUnit + ROTATION_X0, piece = Math.floor(x), w = x - piece - 0.5;
+      let poly = 0;
+      for (let j = ROTATION_STRIDE - 1; j >= 0; j--) {
+        poly = poly * w + ROTATION_COEFFICIENTS[piece * ROTATION_STRIDE + j]!;
+      }
+      const side = hBar >= 275 ? 1 : 0;
+      const table = poly * ROTATION_SIDE_MASK[side * ROTATION_PIECES + piece]!;
+      const dTheta = 30 * Math.exp(-(((hBar - 275) / 25) ** 2));
+      // eq. 18; zero where h̄′ − 275° < −25·√40 (below 1e-16°), as the core does
+      const published = hBar - 275 < -25 * Math.sqrt(40)
+        ? 0
+        : Math.sin((2 * dTheta * Math.PI) / 180);
+      worst = Math.max(worst, Math.abs(table - published));
+    }
+    expect(worst).toBeLessThan(1e-15);
   });
 });
 
