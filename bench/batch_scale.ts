@@ -108,10 +108,13 @@ async function runBatch(label: string) {
     env: { DENO_NO_UPDATE_CHECK: "1" },
   }).spawn();
   let hwmKb = 0;
+  const rssOverTime: [number, number][] = [];
   const poll = setInterval(() => {
     try {
-      const m = /VmHWM:\s+(\d+)/.exec(Deno.readTextFileSync(`/proc/${child.pid}/status`));
+      const status = Deno.readTextFileSync(`/proc/${child.pid}/status`);
+      const m = /VmHWM:\s+(\d+)/.exec(status), r = /VmRSS:\s+(\d+)/.exec(status);
       if (m) hwmKb = Math.max(hwmKb, Number(m[1]));
+      if (r) rssOverTime.push([performance.now() - t0, Number(r[1])]);
     } catch { /* exited */ }
   }, 50);
   const status = await child.output();
@@ -124,6 +127,15 @@ async function runBatch(label: string) {
   console.log(
     `${label}: ${seconds.toFixed(1)} s, ${(n / seconds).toFixed(0)} files/s, ` +
       `peak RSS ≥ ${(hwmKb / 1024).toFixed(0)} MB (VmHWM polled), load average before ${load}`,
+  );
+  // the RSS curve: resident size at each tenth of the run's time (MB)
+  const tenths = Array.from({ length: 10 }, (_, k) => {
+    const until = ((k + 1) / 10) * seconds * 1000;
+    const inside = rssOverTime.filter(([t]) => t <= until && t > (k / 10) * seconds * 1000);
+    return inside.length ? Math.max(...inside.map(([, kb]) => kb)) / 1024 : NaN;
+  });
+  console.log(
+    `${label}: RSS by tenth of the run (MB): ${tenths.map((v) => v.toFixed(0)).join(" ")}`,
   );
   return seconds;
 }
