@@ -39,12 +39,28 @@ export const REPORT_SCRIPT = `
     }
   });
 
-  // the same as roundTo (lib/numeric/round.ts), axisValues (lib/analysis/chart_curves.ts) and
-  // curveValues (lib/report/packed_curve.ts)
+  // the same as roundTo (lib/numeric/round.ts), axisValues and curveValues
+  // (lib/analysis/chart_curves.ts)
   function curveValues(c) {
     if (Array.isArray(c)) return c;
-    var out = [], k = 0;
-    for (var i = 0; i < c.d.length; i++) { k += c.d[i]; out.push(k / c.q); }
+    var k = c.d || textToIntegers(c.text), times = c.d ? 1 : c.order;
+    for (var t = 0; t < times; t++) {
+      var sum = 0;
+      k = k.map(function (x) { return sum += x; });
+    }
+    return k.map(function (x) { return x / c.q; });
+  }
+  // the same as textToIntegers (lib/numeric/step_text.ts)
+  var STEP_ALPHABET = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_";
+  function textToIntegers(text) {
+    var out = [], z = 0, scale = 1;
+    for (var i = 0; i < text.length; i++) {
+      var k = STEP_ALPHABET.indexOf(text[i]);
+      if (k >= 32) { z += (k - 32) * scale; scale *= 32; continue; }
+      z += k * scale;
+      out.push(z % 2 === 0 ? z / 2 : -(z + 1) / 2);
+      z = 0; scale = 1;
+    }
     return out;
   }
   function roundTo(v, decimals) { return typeof v === "number" && isFinite(v) ? Number(v.toFixed(decimals)) : NaN; }
