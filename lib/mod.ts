@@ -26,7 +26,7 @@
  * // in a notebook: const text = await Deno.readTextFile("out/results.json");
  * const text = `{"samples": [{"sample": "S1", "file": "S1.csv",
  *     "color": {"shape": 0, "rows": [["D65", "2", 90.146]]},
- *     "plot": {"nm": {"from": 360, "step": 2, "count": 3}, "t": {"q": 1000, "order": 1, "text": "gyBBC"}}}],
+ *     "plot": {"nm": {"from": 360, "step": 2, "count": 3}, "t": {"q": 1000, "order": 1, "text": "Cy8et"}}}],
  *   "errors": [], "shared": {"shapes": [["illuminant", "observer", "L"]], "catalogue": []}}`;
  * const doc = unpackResults(JSON.parse(text));
  * const first = doc.samples[0]!;

@@ -10,7 +10,7 @@
  */
 import { roundTo } from "../numeric/round.ts";
 import { wavenumberToNm } from "../spectrum/axis.ts";
-import { integersToText, textToIntegers } from "../numeric/step_text.ts";
+import { integersToText, textLengthOf, textToIntegers } from "../numeric/step_text.ts";
 
 /** Most points a stored curve keeps (our choice: enough for any chart, small results). */
 export const CURVE_POINTS = 300;
@@ -113,13 +113,13 @@ export function packSteps(values: number[], decimals: number): StoredCurve {
   if (!values.every(Number.isFinite)) return values;
   const q = 10 ** decimals;
   let steps = values.map((v) => Math.round(v * q) || 0);
-  let best: TextCurve | undefined;
+  let best = { order: 1, steps, length: Infinity };
   for (let order = 1; order <= MAX_ORDER; order++) {
     steps = stepsOf(steps);
-    const text = integersToText(steps);
-    if (!best || text.length < best.text.length) best = { q, order, text };
+    const length = textLengthOf(steps);
+    if (length < best.length) best = { order, steps, length };
   }
-  return best!;
+  return { q, order: best.order, text: integersToText(best.steps) };
 }
 
 /**

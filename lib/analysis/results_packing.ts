@@ -35,6 +35,7 @@ import {
   packSteps,
   type StoredAxis,
   type StoredCurve,
+  type UniformAxis,
 } from "./chart_curves.ts";
 import { integersToText, textToIntegers } from "../numeric/step_text.ts";
 import type { SampleResult } from "./sample_result.ts";
@@ -305,12 +306,24 @@ interface TransmittanceOverAbsorbance {
 function fromAbsorbance(plot: Json, bands: Json, q: number): number[] | undefined {
   const curve = bands.curve as { nm: StoredAxis; data: StoredCurve } | undefined;
   if (bands.ordinate !== "absorbance" || !curve) return undefined;
-  const nm = axisValues(plot.nm as StoredAxis), fitNm = axisValues(curve.nm);
-  if (nm.length !== fitNm.length || nm.some((x, i) => x !== fitNm[nm.length - 1 - i])) {
-    return undefined;
+  if (!reversedAxes(plot.nm as StoredAxis, curve.nm)) return undefined;
+  const a = curveValues(curve.data).reverse();
+  return a.map((x) => Math.round(10 ** -x * q));
+}
+
+/**
+ * Whether one axis holds the other's wavelengths in reverse. Equal steps of 0.01 nm multiples
+ * (as stored) are compared by their ends, lists value by value. (Only a choice of coding rests
+ * on it: what is kept over the absorbance is exact whatever the axes.)
+ */
+function reversedAxes(a: StoredAxis, b: StoredAxis): boolean {
+  if (!Array.isArray(a) && !Array.isArray(b)) {
+    const end = (x: UniformAxis) =>
+      axisValues({ ...x, from: x.from + (x.count - 1) * x.step, count: 1 })[0];
+    return a.count === b.count && a.step === -b.step && a.from === end(b) && b.from === end(a);
   }
-  const a = curveValues(curve.data);
-  return nm.map((_, i) => Math.round(10 ** -a[nm.length - 1 - i]! * q));
+  const x = axisValues(a), y = axisValues(b);
+  return x.length === y.length && x.every((v, i) => v === y[y.length - 1 - i]);
 }
 
 /** The plot's transmittance over the fitted absorbance, when that is shorter. */
@@ -322,10 +335,13 @@ function plotOverAbsorbance(plot: Json, bands: Json): TransmittanceOverAbsorbanc
   const k = curveValues(t).map((v) => Math.round(v * t.q));
   const text = integersToText(k.map((x, i) => x - derived[i]!));
   if (text.length >= t.text.length) return undefined;
-  const over: TransmittanceOverAbsorbance = { q: t.q, over: "absorbance", text };
-  // kept so only when it gives back the very same curve
-  const back = unpackPlot({ ...plot, t: over }, bands).t;
-  return JSON.stringify(back) === JSON.stringify(t) ? over : undefined;
+  // unpacking adds the differences back (exact) and packs the values again: kept so only when
+  // that gives back the very same text
+  const again = packSteps(k.map((x) => x / t.q), Math.round(Math.log10(t.q)));
+  if (Array.isArray(again) || !("text" in again)) return undefined;
+  return again.text === t.text && again.order === t.order
+    ? { q: t.q, over: "absorbance", text }
+    : undefined;
 }
 
 /** The plot with its transmittance as stored before being kept over the absorbance. */

@@ -53,13 +53,22 @@ export const REPORT_SCRIPT = `
   // the same as textToIntegers (lib/numeric/step_text.ts)
   var STEP_ALPHABET = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_";
   function textToIntegers(text) {
-    var out = [], z = 0, scale = 1;
-    for (var i = 0; i < text.length; i++) {
-      var k = STEP_ALPHABET.indexOf(text[i]);
-      if (k >= 32) { z += (k - 32) * scale; scale *= 32; continue; }
-      z += k * scale;
+    var width = STEP_ALPHABET.indexOf(text[0]), total = 6 * (text.length - 1), at = 0, out = [];
+    function take(bits) {
+      var v = 0;
+      for (var b = 0; b < bits; b++, at++) {
+        v = 2 * v + ((STEP_ALPHABET.indexOf(text[1 + Math.floor(at / 6)]) >> (5 - (at % 6))) & 1);
+      }
+      return v;
+    }
+    var escape = Math.pow(2, width) - 1;
+    while (width > 0 && total - at >= width) {
+      var z = take(width);
+      if (z === escape) {
+        if (total - at < 6) break;
+        z += take(take(6));
+      }
       out.push(z % 2 === 0 ? z / 2 : -(z + 1) / 2);
-      z = 0; scale = 1;
     }
     return out;
   }

@@ -14,19 +14,26 @@ describe("integers as step text (lib/numeric/step_text.ts)", () => {
     );
   });
 
-  it("uses one character below 16 either way, two below 512, and only URL-safe characters", () => {
-    // the zig-zag map (0, −1, 1, −2 … → 0, 1, 2, 3 …) then 5 bits a character, as the module says
-    expect(integersToText([0, -1, 1, 15, -16]).length).toBe(5);
-    expect(integersToText([16, -17, 511, -512]).length).toBe(8);
-    expect(integersToText([512]).length).toBe(3);
-    expect(integersToText([0, -1, 1, 2])).toBe("ABCE");
+  it("writes each number in the width that makes the list shortest, six bits a character", () => {
+    // 100 zeros: width 1, 100 bits → 17 characters after the width character
+    expect(integersToText(new Array(100).fill(0)).length).toBe(1 + 17);
+    // numbers −4 … 3 (zig-zag 0 … 7, all below the escape 2³ − 1 but 7): width 3 or 4
+    const small = Array.from({ length: 60 }, (_, i) => (i % 7) - 3);
+    expect(integersToText(small).length).toBe(1 + Math.ceil((60 * 3) / 6));
+    // one large number among small ones takes the escape, the list keeps its small width
+    expect(integersToText([...small, 1e9]).length).toBeLessThan(1 + 31 + 5 + 12);
+    expect(textToIntegers(integersToText([...small, 1e9]))).toEqual([...small, 1e9]);
+    expect(integersToText([0, -1, 1, 2])).toBe("DBU"); // width 3: 000 001 010 100
     expect(integersToText([-1e12, 1e12, 123456789])).toMatch(/^[A-Za-z0-9_-]+$/);
+    expect(textToIntegers("")).toEqual([]);
   });
 
   it("refuses what is not a safe integer, and text that is not step text", () => {
     expect(() => integersToText([0.5])).toThrow(RangeError);
     expect(() => integersToText([2 ** 53])).toThrow(RangeError);
     expect(() => textToIntegers("AB+")).toThrow(/character "\+" at 2/);
-    expect(() => textToIntegers("Ag")).toThrow(/ends inside a number/);
+    // width 1, an escape, a length of 10 and only 5 bits left
+    expect(() => textToIntegers("Blf")).toThrow(/ends mid-number/);
+    expect(() => textToIntegers("_A")).toThrow(/width 63/);
   });
 });
