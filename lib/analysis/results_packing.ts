@@ -13,7 +13,9 @@
  * - The charted transmittance, where it is the measurement the bands were fitted to (the same
  *   wavelengths as the fit's absorbance, in reverse), is kept once: as the integers of
  *   10^(−A) of that absorbance curve and, in `text`, what each differs from the stored values
- *   (`{q, over: "absorbance", text}`), when that is shorter.
+ *   (`{q, over: "absorbance", text}`), when that is shorter. (10^(−A) is taken with `**`; an
+ *   engine whose power function differed in the last bit would change an integer only where
+ *   10^(−A)·q fell within that bit of a half, about once in 10¹¹ values.)
  * - The colour change leaves out the L*a*b*, chroma, hue and swatch of its two colours where they
  *   are those of the colour rows; provenance leaves out the entries with no value and no source.
  * - Computed numbers keep 9 significant digits (`STORED_DIGITS`): the rounding changes a number
