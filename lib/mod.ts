@@ -20,6 +20,20 @@
  * if (!(day!.a > 0 && day!.L < 80)) throw new Error("a red stone should have a* > 0");
  * ```
  *
+ * @example Reading a batch's results.json: unpack it first (shared tables, step-text curves)
+ * ```ts
+ * import { curveValues, unpackResults } from "./mod.ts";
+ * // in a notebook: const text = await Deno.readTextFile("out/results.json");
+ * const text = `{"samples": [{"sample": "S1", "file": "S1.csv",
+ *     "color": {"shape": 0, "rows": [["D65", "2", 90.146]]},
+ *     "plot": {"nm": {"from": 360, "step": 2, "count": 3}, "t": {"q": 1000, "order": 1, "text": "Cy8et"}}}],
+ *   "errors": [], "shared": {"shapes": [["illuminant", "observer", "L"]], "catalogue": []}}`;
+ * const doc = unpackResults(JSON.parse(text));
+ * const first = doc.samples[0]!;
+ * if (first.color[0]!.sample !== "S1" || first.color[0]!.L !== 90.146) throw new Error("row");
+ * if (curveValues(first.plot.t).join() !== "0.8,0.799,0.8") throw new Error("curve");
+ * ```
+ *
  * @example Colour difference of two CIELAB colours (Sharma, Wu & Dalal 2005, pair 1)
  * ```ts
  * import { deltaE2000 } from "./mod.ts";
@@ -140,8 +154,15 @@ export {
   type PackedCurve,
   type StoredAxis,
   type StoredCurve,
+  type TextCurve,
   type UniformAxis,
 } from "./analysis/chart_curves.ts";
+export {
+  type SharedTables,
+  type StoredCatalogueEntry,
+  unpackResults,
+  unpackSample,
+} from "./analysis/results_packing.ts";
 export type { ResultsDocument } from "./analysis/results_document.ts";
 export { type ConvertOptions, convertSpectrum } from "./analysis/convert_spectrum.ts";
 export { VERSION } from "./version.ts";

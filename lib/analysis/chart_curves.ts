@@ -3,12 +3,14 @@
  * `max` points, at a fixed storage precision. A wavelength axis of equal steps is stored as its
  * first value, step and count (most exports are on such a grid); {@linkcode axisValues} gives
  * back exactly the values the list would have held, and the values are stored as integer steps
- * ({@linkcode curveValues} gives them back exactly). Display rounding is the report builder's job.
+ * written as text ({@linkcode curveValues} gives them back exactly). Display rounding is the
+ * report builder's job.
  *
  * @module
  */
 import { roundTo } from "../numeric/round.ts";
 import { wavenumberToNm } from "../spectrum/axis.ts";
+import { integersToText, textLengthOf, textToIntegers } from "../numeric/step_text.ts";
 
 /** Most points a stored curve keeps (our choice: enough for any chart, small results). */
 export const CURVE_POINTS = 300;
@@ -62,7 +64,7 @@ function stride(length: number, max: number): number {
   return Math.max(1, Math.ceil(length / max));
 }
 
-/** A curve as integer steps: value i is (d[0] + … + d[i]) / q, q a power of ten. */
+/** A curve as integer steps (older results): value i is (d[0] + … + d[i]) / q, q a power of ten. */
 export interface PackedCurve {
   /** Scale: a power of ten (10^decimals). */
   q: number;
@@ -70,46 +72,81 @@ export interface PackedCurve {
   d: number[];
 }
 
-/** A stored curve: its values, or the same values as integer steps. */
-export type StoredCurve = number[] | PackedCurve;
-
 /**
- * Values already rounded to `decimals` as integer steps, which give back exactly the same
- * numbers (k/10^d is the double nearest to the decimal, as `Number(v.toFixed(d))` is); a curve
- * with a value that is not finite stays a list.
+ * A curve as integer steps written as text (`lib/numeric/step_text.ts`): the values are k / q
+ * with k whole; `text` holds the steps of k (`order` 1: k[i] − k[i−1], the first from 0), the
+ * steps of those steps (`order` 2) or the steps once more (`order` 3), whichever text is
+ * shortest: a noisy curve takes order 1, a smooth fitted model order 2 or 3.
  */
-export function packSteps(values: number[], decimals: number): StoredCurve {
-  const q = 10 ** decimals;
-  const d: number[] = [];
-  let previous = 0;
-  for (const v of values) {
-    if (!Number.isFinite(v)) return values;
-    const k = Math.round(v * q);
-    d.push(k - previous);
-    previous = k;
-  }
-  return { q, d };
+export interface TextCurve {
+  /** Scale: a power of ten (10^decimals). */
+  q: number;
+  /** How many times steps were taken (1, 2 or 3); the running sums taken as often give k. */
+  order: number;
+  /** The integers as text. */
+  text: string;
+}
+
+/** A stored curve: its values, integer steps (older results), or integer steps as text. */
+export type StoredCurve = number[] | PackedCurve | TextCurve;
+
+/** Most times steps are taken for a text curve (our choice: a fitted model's optimum). */
+const MAX_ORDER = 3;
+
+/** Running sums: the inverse of taking steps. */
+function runningSums(steps: number[]): number[] {
+  let k = 0;
+  return steps.map((s) => k += s);
+}
+
+/** Steps: each value minus the one before it (the first minus 0). */
+function stepsOf(values: number[]): number[] {
+  return values.map((v, i) => v - (i > 0 ? values[i - 1]! : 0));
 }
 
 /**
- * The values of a stored curve (a list, kept by older results, is given as it is).
+ * Values already rounded to `decimals` as integer steps written as text, which give back
+ * exactly the same numbers (k/10^d is the double nearest to the decimal, as
+ * `Number(v.toFixed(d))` is); a curve with a value that is not finite stays a list.
+ */
+export function packSteps(values: number[], decimals: number): StoredCurve {
+  if (!values.every(Number.isFinite)) return values;
+  const q = 10 ** decimals;
+  let steps = values.map((v) => Math.round(v * q) || 0);
+  let best = { order: 1, steps, length: Infinity };
+  for (let order = 1; order <= MAX_ORDER; order++) {
+    steps = stepsOf(steps);
+    const length = textLengthOf(steps);
+    if (length < best.length) best = { order, steps, length };
+  }
+  return { q, order: best.order, text: integersToText(best.steps) };
+}
+
+/**
+ * The values of a stored curve (a list, or integer steps as older results keep them, are read
+ * too).
  *
+ * @throws {SyntaxError} When a curve's text is not step text.
  * @example
  * ```ts
  * import { curveValues, packSteps } from "./chart_curves.ts";
  * const v = curveValues(packSteps([0.5, 0.51234, 0.4], 5));
  * if (v.join() !== "0.5,0.51234,0.4") throw new Error(v.join());
+ * if (curveValues({ q: 100, d: [50, 1] }).join() !== "0.5,0.51") throw new Error("older form");
  * ```
  */
 export function curveValues(curve: StoredCurve): number[] {
   if (Array.isArray(curve)) return curve;
-  const out: number[] = [];
-  let k = 0;
-  for (const step of curve.d) {
-    k += step;
-    out.push(k / curve.q);
+  let k: number[];
+  if ("d" in curve) k = runningSums(curve.d);
+  else {
+    if (!Number.isInteger(curve.order) || curve.order < 1 || curve.order > MAX_ORDER) {
+      throw new SyntaxError(`Cannot read a curve of order ${curve.order}: expected 1 to 3`);
+    }
+    k = textToIntegers(curve.text);
+    for (let i = 0; i < curve.order; i++) k = runningSums(k);
   }
-  return out;
+  return k.map((x) => x / curve.q);
 }
 
 /** Transmittance against wavelength, thinned for the charts. */

@@ -75,14 +75,7 @@ export function assignBands(
       // a component (the shoulder of a band) only beside the band it belongs to
       .filter((e) => !e.requires || seen.has(`${e.ion}|${e.host}|${e.requires}`))
       .map((e) => {
-        const dPos = band.centerCm1 - e.centerCm1;
-        const reason = `centre ${band.centerCm1.toFixed(0)} cm⁻¹ vs ${e.centerCm1} (${
-          dPos >= 0 ? "+" : ""
-        }${dPos.toFixed(0)}), FWHM ${band.fwhmCm1.toFixed(0)} vs ${e.fwhmCm1} cm⁻¹${
-          e.status === "published"
-            ? ""
-            : `; catalogue position from memory, unverified, listed because a published ${e.ion} band matches this spectrum`
-        }`;
+        const reason = assignmentReason(band, e);
         return {
           bandIndex,
           ion: e.ion,
@@ -100,4 +93,22 @@ export function assignBands(
     out.push(...scored);
   });
   return out;
+}
+
+/**
+ * Why a band matches a catalogue entry, in words: its centre and FWHM against the entry's, and
+ * the caution for an entry from memory. Results files keep the entry once and rebuild this.
+ */
+export function assignmentReason(
+  band: Pick<FittedBand, "centerCm1" | "fwhmCm1">,
+  entry: Pick<CatalogueBand, "ion" | "centerCm1" | "fwhmCm1" | "status">,
+): string {
+  const dPos = band.centerCm1 - entry.centerCm1;
+  return `centre ${band.centerCm1.toFixed(0)} cm⁻¹ vs ${entry.centerCm1} (${dPos >= 0 ? "+" : ""}${
+    dPos.toFixed(0)
+  }), FWHM ${band.fwhmCm1.toFixed(0)} vs ${entry.fwhmCm1} cm⁻¹${
+    entry.status === "published"
+      ? ""
+      : `; catalogue position from memory, unverified, listed because a published ${entry.ion} band matches this spectrum`
+  }`;
 }

@@ -5,6 +5,7 @@
  * @module
  */
 import type { ReportHeader, ResultsDocument } from "../analysis/results_document.ts";
+import { type SharedTables, unpackResults } from "../analysis/results_packing.ts";
 import { renderResultsParts } from "../report/report_input.ts";
 import { readChartBundle } from "./chart_bundle.ts";
 import { writeChunksAtomic } from "./atomic_write.ts";
@@ -33,14 +34,24 @@ function reportHeaderOf(v: unknown): ReportHeader | undefined {
 }
 
 /** Checks the shape of a parsed results document. */
-function checkResults(parsed: unknown, resultsPath: string): ResultsDocument {
-  const doc = parsed as Partial<ResultsDocument> | null;
+function checkResults(
+  parsed: unknown,
+  resultsPath: string,
+): ResultsDocument & { shared?: SharedTables } {
+  const doc = parsed as Partial<ResultsDocument> & { shared?: SharedTables } | null;
   if (
     !doc || typeof doc !== "object" || !Array.isArray(doc.samples) || !Array.isArray(doc.errors)
   ) {
     throw new SettingsError(
       `${resultsPath} is not a crystint results file (needs "samples" and "errors")`,
     );
+  }
+  const shared = doc.shared;
+  if (
+    shared !== undefined &&
+    (!shared || !Array.isArray(shared.shapes) || !Array.isArray(shared.catalogue))
+  ) {
+    throw new SettingsError(`${resultsPath} has a "shared" block without shapes and catalogue`);
   }
   return {
     version: typeof doc.version === "string" ? doc.version : "unknown",
@@ -54,6 +65,7 @@ function checkResults(parsed: unknown, resultsPath: string): ResultsDocument {
     samples: doc.samples,
     errors: doc.errors,
     manifest: Array.isArray(doc.manifest) ? doc.manifest : [],
+    ...(shared ? { shared } : {}),
   };
 }
 
@@ -78,7 +90,7 @@ export async function reportFromResults(resultsPath: string, outDir: string): Pr
   const doc = checkResults(parsed, resultsPath);
   let html: string[];
   try {
-    html = renderResultsParts(doc, await readChartBundle());
+    html = renderResultsParts(unpackResults(doc), await readChartBundle());
   } catch (e) {
     throw new SettingsError(
       `${resultsPath} holds results the report cannot show: ${(e as Error).message}`,

@@ -9,6 +9,7 @@
  */
 import type { SampleResult } from "../analysis/sample_result.ts";
 import type { ResultsError, ResultsHeader } from "../analysis/results_document.ts";
+import { ResultsPacker, unpackSample } from "../analysis/results_packing.ts";
 import { ReportInputBuilder } from "../report/report_input.ts";
 import { renderReportParts } from "../report/render_report.ts";
 import { openTemp, type TempWriter, writeChunksToTemp } from "./atomic_write.ts";
@@ -41,8 +42,8 @@ export type ResultSource = () => AsyncIterable<SampleResult>;
 /**
  * Writes results.json, results.csv and index.html; returns the number of samples.
  *
- * The page is rendered from the same records results.json holds, so re-rendering that file
- * gives the same page byte for byte.
+ * results.json holds the samples packed (`results_packing.ts`); the page is rendered from the
+ * same records unpacked, so re-rendering that file gives the same page byte for byte.
  */
 export async function writeOutputs(
   paths: OutputPaths,
@@ -70,14 +71,18 @@ export async function writeOutputs(
         `${report ? `"report":${JSON.stringify(report)},` : ""}"samples":[`,
     );
     await csv.write(resultsCsvHeader(extraColumns));
+    const packer = new ResultsPacker();
     for await (const result of results()) {
-      await json.write(`${samples === 0 ? "" : ","}\n${JSON.stringify(result)}`);
+      const stored = packer.pack(result);
+      await json.write(`${samples === 0 ? "" : ","}\n${JSON.stringify(stored)}`);
       await csv.write(resultsCsvRows(result, extraColumns));
       samples++;
-      builder.add(result);
+      // the page is drawn from what results.json holds, as `crystint report` reads it back
+      builder.add(unpackSample(stored, packer.shared));
     }
     await json.write(
-      `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)}}\n`,
+      `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)},` +
+        `"shared":${JSON.stringify(packer.shared)}}\n`,
     );
     for (const [w, path] of writers.splice(0)) temps.push([await w.finish(), path]);
     const html = renderReportParts(builder.finish(errors, manifestNotes), await readChartBundle());

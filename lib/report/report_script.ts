@@ -39,12 +39,37 @@ export const REPORT_SCRIPT = `
     }
   });
 
-  // the same as roundTo (lib/numeric/round.ts), axisValues (lib/analysis/chart_curves.ts) and
-  // curveValues (lib/report/packed_curve.ts)
+  // the same as roundTo (lib/numeric/round.ts), axisValues and curveValues
+  // (lib/analysis/chart_curves.ts)
   function curveValues(c) {
     if (Array.isArray(c)) return c;
-    var out = [], k = 0;
-    for (var i = 0; i < c.d.length; i++) { k += c.d[i]; out.push(k / c.q); }
+    var k = c.d || textToIntegers(c.text), times = c.d ? 1 : c.order;
+    for (var t = 0; t < times; t++) {
+      var sum = 0;
+      k = k.map(function (x) { return sum += x; });
+    }
+    return k.map(function (x) { return x / c.q; });
+  }
+  // the same as textToIntegers (lib/numeric/step_text.ts)
+  var STEP_ALPHABET = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_";
+  function textToIntegers(text) {
+    var width = STEP_ALPHABET.indexOf(text[0]), total = 6 * (text.length - 1), at = 0, out = [];
+    function take(bits) {
+      var v = 0;
+      for (var b = 0; b < bits; b++, at++) {
+        v = 2 * v + ((STEP_ALPHABET.indexOf(text[1 + Math.floor(at / 6)]) >> (5 - (at % 6))) & 1);
+      }
+      return v;
+    }
+    var escape = Math.pow(2, width) - 1;
+    while (width > 0 && total - at >= width) {
+      var z = take(width);
+      if (z === escape) {
+        if (total - at < 6) break;
+        z += take(take(6));
+      }
+      out.push(z % 2 === 0 ? z / 2 : -(z + 1) / 2);
+    }
     return out;
   }
   function roundTo(v, decimals) { return typeof v === "number" && isFinite(v) ? Number(v.toFixed(decimals)) : NaN; }

@@ -3,9 +3,12 @@ import { expect } from "expect";
 import {
   axisValues,
   curveValues,
+  packSteps,
+  type TextCurve,
   thinBandCurve,
   thinTransmittance,
 } from "../../lib/analysis/chart_curves.ts";
+import { REPORT_SCRIPT } from "../../lib/report/report_script.ts";
 import { roundTo } from "../../lib/numeric/round.ts";
 
 describe("stored chart curves (lib/analysis/chart_curves.ts)", () => {
@@ -49,5 +52,54 @@ describe("stored chart curves (lib/analysis/chart_curves.ts)", () => {
     const gap = thinTransmittance([400, 401, 402], [0.1, NaN, 0.3]);
     expect(Array.isArray(gap.t)).toBe(true);
     expect(curveValues([0.1, 0.2])).toEqual([0.1, 0.2]);
+  });
+});
+
+describe("curves as step text, and the older forms", () => {
+  let seed = 9;
+  const rnd = () => ((seed = (Math.imul(seed, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+
+  it("a noisy curve and a smooth one give back exactly the values rounded to 5 decimals", () => {
+    const noisy = Array.from(
+      { length: 236 },
+      (_, i) => 0.6 + 0.2 * Math.sin(i / 40) + 0.002 * rnd(),
+    );
+    const smooth = Array.from({ length: 236 }, (_, i) => 0.8 * Math.exp(-(((i - 120) / 30) ** 2)));
+    for (const values of [noisy, smooth, [3.14159], [], [-2.5, 1e4, -1e4]]) {
+      const rounded = values.map((v) => roundTo(v, 5));
+      const packed = packSteps(rounded, 5);
+      expect(Array.isArray(packed)).toBe(false);
+      expect(curveValues(packed)).toEqual(rounded);
+    }
+    // a smooth curve takes steps of steps (shorter than plain steps)
+    expect((packSteps(smooth.map((v) => roundTo(v, 5)), 5) as TextCurve).order).toBeGreaterThan(1);
+  });
+
+  it("reads the integer steps older results hold ({q, d}) and lists, and refuses a bad order", () => {
+    expect(curveValues({ q: 100000, d: [66529, -785, -1055] })).toEqual([
+      0.66529,
+      0.65744,
+      0.64689,
+    ]);
+    expect(curveValues([0.1, 0.2])).toEqual([0.1, 0.2]);
+    expect(() => curveValues({ q: 10, order: 4, text: "A" })).toThrow(SyntaxError);
+  });
+
+  it("the page's own script reads the text the same way (report_script.ts)", () => {
+    const source = REPORT_SCRIPT;
+    const start = source.indexOf("  function curveValues(c)");
+    const end = source.indexOf("  function roundTo(");
+    const pageCurveValues = new Function(`${source.slice(start, end)}; return curveValues;`)() as (
+      c: unknown,
+    ) => number[];
+    for (const order of [1, 2, 3]) {
+      const values = Array.from(
+        { length: 50 },
+        (_, i) => roundTo(Math.sin(i / 7) + rnd() * order / 100, 5),
+      );
+      const packed = packSteps(values, 5);
+      expect(pageCurveValues(packed)).toEqual(curveValues(packed));
+    }
+    expect(pageCurveValues({ q: 100, d: [5, 1] })).toEqual([0.05, 0.06]);
   });
 });

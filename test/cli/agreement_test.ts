@@ -1,5 +1,6 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
+import { readResultsJson } from "../_results_json.ts";
 import { ROOT, runCli } from "../_run_cli.ts";
 
 const stone = `${ROOT}test/fixtures/colour/cr_corundum_1nm.csv`;
@@ -72,7 +73,7 @@ describe("every command gives the same stone the same L*a*b* under the same cond
       "--quiet",
     );
     expect(batch.code).toBe(0);
-    const results = JSON.parse(await Deno.readTextFile(`${dir}/out/results.json`));
+    const results = await readResultsJson(`${dir}/out/results.json`);
     const row = results.samples[0].color.find((r: { illuminant: string; observer: string }) =>
       r.illuminant === "D65" && r.observer === "2"
     );

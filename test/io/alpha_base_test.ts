@@ -2,6 +2,7 @@
 // α = α₁₀ · ln 10 (ISO 80000-9 / IUPAC Gold Book: napierian vs decadic absorption coefficient).
 import { describe, it } from "node:test";
 import { expect } from "expect";
+import { readResultsJson } from "../_results_json.ts";
 import { readSpectraFromText } from "../../lib/io/read_spectra.ts";
 import { spectrumColor } from "../../lib/cie/spectrum_color.ts";
 import { makeLot, runCli } from "../_run_cli.ts";
@@ -74,7 +75,7 @@ describe("alphaBase on read", () => {
     const r = await runCli("batch", lot, "--out", out, "--manifest", sheet, "--quiet");
     expect(r.code).toBe(0);
     const L = async () => {
-      const doc = JSON.parse(await Deno.readTextFile(`${out}/results.json`));
+      const doc = await readResultsJson(`${out}/results.json`);
       return Object.fromEntries(
         doc.samples.map((
           s: { sample: string; color: { L: number }[] },
@@ -114,7 +115,7 @@ describe("alphaBase on read", () => {
     );
     expect(noSheet.stderr).toBe("");
     expect(noSheet.code).toBe(0);
-    const doc = JSON.parse(await Deno.readTextFile(`${bare}/results.json`));
+    const doc = await readResultsJson(`${bare}/results.json`);
     expect(doc.samples[0].color[0].L).toBeCloseTo(flatL(10 ** (-1.5 * 0.4)), 4);
   });
 });

@@ -1,0 +1,169 @@
+/**
+ * Whole numbers written as short text. Each number is zig-zag mapped to a non-negative one
+ * (0, −1, 1, −2 … → 0, 1, 2, 3 …) and written in a fixed number of bits w, chosen for the list
+ * so the text is shortest; a number too large for w bits is written as w one-bits, then the
+ * bit length of the rest in 6 bits, then the rest. The bits go six to a character of the
+ * URL-safe base-64 alphabet (`A`–`Z`, `a`–`z`, `0`–`9`, `-`, `_`), the first character giving w,
+ * the last one filled up with one-bits. The text needs no escaping in JSON or HTML. Our
+ * encoding (the zig-zag map as in Protocol Buffers' sint fields).
+ *
+ * @module
+ */
+
+/** The 64 characters, each carrying 6 bits. */
+const ALPHABET = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789-_";
+
+/** Character code → alphabet index (−1 for a character outside it). */
+const INDEX = (() => {
+  const table = new Int8Array(128).fill(-1);
+  for (let i = 0; i < ALPHABET.length; i++) table[ALPHABET.charCodeAt(i)] = i;
+  return table;
+})();
+
+/** Bits of the length field of a number written past its escape. */
+const LENGTH_BITS = 6;
+
+/** Widest fixed width tried (our choice: wider lists are rare and still written exactly). */
+const MAX_WIDTH = 24;
+
+/** Bit length of a non-negative safe integer (0 for 0). */
+function bitLength(z: number): number {
+  if (z < 2 ** 31) return 32 - Math.clz32(z);
+  return 31 + bitLength(Math.floor(z / 2 ** 31));
+}
+
+/** The width that makes the list shortest, and its bits. */
+function bestWidth(zigzag: number[]): { width: number; bits: number } {
+  let longest = 1;
+  for (const z of zigzag) longest = Math.max(longest, bitLength(z));
+  let width = 1, bits = Infinity;
+  for (let w = 1; w <= Math.min(MAX_WIDTH, longest); w++) {
+    const escape = 2 ** w - 1;
+    let b = 0;
+    for (const z of zigzag) b += z < escape ? w : w + LENGTH_BITS + bitLength(z - escape);
+    if (b < bits) [width, bits] = [w, b];
+  }
+  return { width, bits };
+}
+
+/** The zig-zag numbers of safe integers. */
+function zigzagOf(values: ArrayLike<number>): number[] {
+  const zigzag: number[] = [];
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]!;
+    const z = v >= 0 ? 2 * v : -2 * v - 1;
+    if (!Number.isSafeInteger(v) || !Number.isSafeInteger(z)) {
+      throw new RangeError(`Cannot write ${v} as text: not a safe integer`);
+    }
+    zigzag.push(z);
+  }
+  return zigzag;
+}
+
+/**
+ * How many characters {@linkcode integersToText} writes for the values (to choose between
+ * forms without writing each).
+ *
+ * @throws {RangeError} When a value is not a safe integer.
+ */
+export function textLengthOf(values: ArrayLike<number>): number {
+  return 1 + Math.ceil(bestWidth(zigzagOf(values)).bits / 6);
+}
+
+/**
+ * Safe integers as text (see the module note).
+ *
+ * @throws {RangeError} When a value is not a safe integer or its zig-zag form exceeds 2⁵³.
+ * @example
+ * ```ts
+ * import { integersToText, textToIntegers } from "./step_text.ts";
+ * const text = integersToText([0, -1, 15, 16, -300]);
+ * if (textToIntegers(text).join() !== "0,-1,15,16,-300") throw new Error(text);
+ * ```
+ */
+export function integersToText(values: ArrayLike<number>): string {
+  const zigzag = zigzagOf(values);
+  const { width } = bestWidth(zigzag);
+  const out: string[] = [ALPHABET[width]!];
+  let acc = 0, pending = 0; // pending bits (fewer than 6 between writes) held in acc
+  const putSmall = (value: number, bits: number) => { // bits ≤ 24: acc stays below 2³⁰
+    acc = (acc << bits) | value;
+    pending += bits;
+    while (pending >= 6) {
+      pending -= 6;
+      out.push(ALPHABET[(acc >> pending) & 63]!);
+    }
+    acc &= (1 << pending) - 1;
+  };
+  const put = (value: number, bits: number) => {
+    for (; bits > 24; bits -= 24) {
+      const high = Math.floor(value / 2 ** (bits - 24));
+      putSmall(high, 24);
+      value -= high * 2 ** (bits - 24);
+    }
+    putSmall(value, bits);
+  };
+  const escape = 2 ** width - 1;
+  for (const z of zigzag) {
+    if (z < escape) put(z, width);
+    else {
+      const rest = z - escape, length = bitLength(rest);
+      put(escape, width);
+      put(length, LENGTH_BITS);
+      put(rest, length);
+    }
+  }
+  if (pending > 0) put(2 ** (6 - pending) - 1, 6 - pending);
+  return out.join("");
+}
+
+/**
+ * The integers written by {@linkcode integersToText}.
+ *
+ * @throws {SyntaxError} When the text holds a character outside the alphabet or ends mid-number.
+ */
+export function textToIntegers(text: string): number[] {
+  const digits: number[] = [];
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    const k = c < 128 ? INDEX[c]! : -1;
+    if (k < 0) {
+      throw new SyntaxError(`Cannot read step text: character ${JSON.stringify(text[i])} at ${i}`);
+    }
+    digits.push(k);
+  }
+  const width = digits[0];
+  if (width === undefined) return [];
+  if (width < 1 || width > 53) throw new SyntaxError(`Cannot read step text: width ${width}`);
+  const total = 6 * (digits.length - 1);
+  let acc = 0, held = 0, next = 1; // bits read ahead, held in acc
+  const takeSmall = (bits: number) => { // bits ≤ 24: acc stays below 2³⁰
+    while (held < bits) {
+      acc = (acc << 6) | digits[next++]!;
+      held += 6;
+    }
+    held -= bits;
+    const v = (acc >> held) & ((1 << bits) - 1);
+    acc &= (1 << held) - 1;
+    return v;
+  };
+  const take = (bits: number) => {
+    let v = 0;
+    for (; bits > 24; bits -= 24) v = v * 2 ** 24 + takeSmall(24);
+    return v * 2 ** bits + takeSmall(bits);
+  };
+  const left = () => total - (6 * (next - 1) - held);
+  const escape = 2 ** width - 1;
+  const out: number[] = [];
+  while (left() >= width) {
+    let z = take(width);
+    if (z === escape) {
+      if (left() < LENGTH_BITS) break; // the fill of the last character
+      const length = take(LENGTH_BITS);
+      if (left() < length) throw new SyntaxError("Cannot read step text: it ends mid-number");
+      z += take(length);
+    }
+    out.push(z % 2 === 0 ? z / 2 : -(z + 1) / 2);
+  }
+  return out;
+}
