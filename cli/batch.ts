@@ -96,6 +96,12 @@ export const BATCH_COMMAND: CommandSpec = {
       help: "number of worker threads",
       default: "one per core, at most 8",
     },
+    {
+      name: "plain-json",
+      type: "boolean",
+      help:
+        "results.json with every record written out in full (a list of objects per sample, numbers unrounded) instead of packed; larger, but readable without crystint (jq, a spreadsheet plug-in)",
+    },
     { name: "quiet", type: "boolean", help: "no progress output" },
   ],
   notes: [
@@ -144,6 +150,7 @@ async function batchCommand(args: ParsedArgs): Promise<number> {
   if (!values.out) throw new UsageError("Option --out DIR is required");
   const workers = positiveNumber(args.string("workers"), "workers");
   const quiet = args.flag("quiet");
+  const plainJson = args.flag("plain-json");
   let settings: BatchSettings | undefined;
   try {
     settings = await settingsFor(args);
@@ -185,6 +192,7 @@ async function batchCommand(args: ParsedArgs): Promise<number> {
       ...(values.manifest ? { manifestPath: values.manifest } : {}),
       ...(settings ? { settings } : values.settings ? { settingsPath: values.settings } : {}),
       ...(workers ? { workers: Math.round(workers) } : {}),
+      ...(plainJson ? { plainJson } : {}),
       onProgress,
       log: quiet ? () => {} : (m) => log(escapeControls(m)),
     });

@@ -42,6 +42,12 @@ const OPTIONS: OptionSpec[] = [
   },
   { name: "workers", type: "string", arg: "N", help: "number of worker threads" },
   {
+    name: "plain-json",
+    type: "boolean",
+    help:
+      "results.json with every record written out in full (a list of objects per sample, numbers unrounded) instead of packed; larger, but readable without crystint (jq, a spreadsheet plug-in)",
+  },
+  {
     name: "quiet",
     type: "boolean",
     help: "no line per processed file (errors are still shown)",
@@ -59,6 +65,7 @@ async function watch(args: ParsedArgs): Promise<number> {
     settle: args.string("settle"),
     workers: args.string("workers"),
     quiet: args.flag("quiet"),
+    plainJson: args.flag("plain-json"),
   };
   if (positionals.length !== 1) throw new UsageError("Give exactly one folder to watch");
   if (!values.out) throw new UsageError("Option --out DIR is required");
@@ -80,6 +87,7 @@ async function watch(args: ParsedArgs): Promise<number> {
       ...(values.manifest ? { manifestPath: values.manifest } : {}),
       ...(values.settings ? { settingsPath: values.settings } : {}),
       ...(workers ? { workers: Math.round(workers) } : {}),
+      ...(values.plainJson ? { plainJson: true } : {}),
       pollMs: poll * 1000,
       settleMs: settle * 1000,
       signal: stop.signal,

@@ -39,6 +39,11 @@ export interface BatchOptions {
   settings?: BatchSettings;
   /** Worker count (default: one per core, at most 8). */
   workers?: number;
+  /**
+   * results.json with every record in full (lists of objects, numbers unrounded) instead of
+   * packed (`lib/analysis/results_packing.ts`); larger, readable without crystint.
+   */
+  plainJson?: boolean;
   /** Called after each file. */
   onProgress?: (done: number, total: number) => void;
   /** Receives notes for the user (sample-sheet mismatches, skipped links, unknown settings). */
@@ -159,6 +164,7 @@ export async function runBatch(options: BatchOptions): Promise<BatchSummary> {
       errors,
       computed.manifestNotes,
       [...new Set(rows.flatMap((r) => Object.keys(r.extra)))],
+      options.plainJson ?? false,
     );
     return {
       files: files.length,

@@ -30,6 +30,8 @@ export interface WatchOptions {
   settleMs?: number;
   /** Worker count. */
   workers?: number;
+  /** results.json with plain records instead of packed ones (see BatchOptions). */
+  plainJson?: boolean;
   /** Stops the watch (after the run in progress has written its outputs). */
   signal: AbortSignal;
   /** Called once per new or changed file after its analysis (or failure). */
@@ -120,6 +122,7 @@ export async function watchFolder(options: WatchOptions): Promise<number> {
             ...(options.manifestPath ? { manifestPath: options.manifestPath } : {}),
             ...(options.settingsPath ? { settingsPath: options.settingsPath } : {}),
             ...(options.workers ? { workers: options.workers } : {}),
+            ...(options.plainJson ? { plainJson: true } : {}),
             accept: (f) => stable.has(f),
             onFile: (o) => {
               if (fresh.has(o.file)) options.onFile?.(o);

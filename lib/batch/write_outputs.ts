@@ -42,8 +42,9 @@ export type ResultSource = () => AsyncIterable<SampleResult>;
 /**
  * Writes results.json, results.csv and index.html; returns the number of samples.
  *
- * results.json holds the samples packed (`results_packing.ts`); the page is rendered from the
- * same records unpacked, so re-rendering that file gives the same page byte for byte.
+ * results.json holds the samples packed (`results_packing.ts`), or as they are with `plain`;
+ * the page is rendered from the records results.json holds (unpacked), so re-rendering that file
+ * gives the same page byte for byte.
  */
 export async function writeOutputs(
   paths: OutputPaths,
@@ -52,6 +53,7 @@ export async function writeOutputs(
   errors: ResultsError[],
   manifestNotes: string[],
   extraColumns: string[],
+  plain = false,
 ): Promise<number> {
   const builder = new ReportInputBuilder(header);
   let samples = 0;
@@ -73,16 +75,16 @@ export async function writeOutputs(
     await csv.write(resultsCsvHeader(extraColumns));
     const packer = new ResultsPacker();
     for await (const result of results()) {
-      const stored = packer.pack(result);
+      const stored = plain ? result : packer.pack(result);
       await json.write(`${samples === 0 ? "" : ","}\n${JSON.stringify(stored)}`);
       await csv.write(resultsCsvRows(result, extraColumns));
       samples++;
       // the page is drawn from what results.json holds, as `crystint report` reads it back
-      builder.add(unpackSample(stored, packer.shared));
+      builder.add(plain ? result : unpackSample(stored as Record<string, unknown>, packer.shared));
     }
     await json.write(
-      `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)},` +
-        `"shared":${JSON.stringify(packer.shared)}}\n`,
+      `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)}` +
+        (plain ? "}\n" : `,"shared":${JSON.stringify(packer.shared)}}\n`),
     );
     for (const [w, path] of writers.splice(0)) temps.push([await w.finish(), path]);
     const html = renderReportParts(builder.finish(errors, manifestNotes), await readChartBundle());
