@@ -4,9 +4,23 @@
  * @module
  */
 import type { ColorRow } from "../lib/cie/spectrum_color.ts";
-import { conditionsOf, spectraColorRows } from "../lib/cie/spectra_color_many.ts";
-import { transmittanceForPath } from "../lib/optics/path_transmittance.ts";
+import {
+  conditionsOf,
+  spectraColorRows,
+  type SpectraXyz,
+  spectraXyzRows,
+  XyzSums,
+} from "../lib/cie/spectra_color_many.ts";
+import {
+  floorMatters,
+  type ReflectionSettings,
+  transmittanceForPath,
+} from "../lib/optics/path_transmittance.ts";
 import type { Spectrum } from "../lib/spectrum/spectrum.ts";
+import { openInputSource } from "../lib/io/read_file.ts";
+import { indexSourceLines } from "../lib/io/byte_source.ts";
+import { streamSpectra } from "../lib/io/stream_spectra.ts";
+import type { ReadOptions } from "../lib/io/read_spectra.ts";
 import type { CommandSpec } from "./_command.ts";
 import { MARKS } from "../lib/report/marks.ts";
 import {
@@ -31,10 +45,13 @@ import {
   READING_OPTIONS,
 } from "./_options.ts";
 import {
+  type AlphaBase,
   checkObservers,
   forEachFile,
+  naturalAlpha,
   reflectionFrom,
   resolveIlluminants,
+  type StreamedFile,
   surfaceLossNote,
 } from "./_spectrum_options.ts";
 import {
@@ -80,6 +97,12 @@ export const COLOR_EXTRA_KEYS = [
 
 /** Spectra coloured and written at a time with --csv (our choice: a few MB of rows at most). */
 const SLICE = 1000;
+
+/**
+ * Most lines of a file coloured a stretch of rows at a time (our choice): the route pays where
+ * a table is wide (many spectra side by side); a long narrow file reads whole as before.
+ */
+const STREAM_MAX_LINES = 65_536;
 
 /** Uncertainty columns the terminal table shows. */
 const SHOWN_SD = ["LSd", "aSd", "bSd"];
@@ -133,7 +156,15 @@ export const COLOR_COMMAND: CommandSpec = {
     if (format === "csv") writeCsv([], csvKeys);
     const conditions = conditionsOf(illuminants, observers);
     const m = conditions.length;
-    const failed = await forEachFile(args.positionals, args, (spectra, file) => {
+    const emit = (sliceRows: ColorRow[]) => {
+      if (format === "csv") writeCsv(sliceRows as never, csvKeys, { header: false });
+      else for (const r of sliceRows) rows.push(r);
+    };
+    const streamed = uncertainty
+      ? undefined
+      : (file: string, read: ReadOptions, base: AlphaBase) =>
+        colorStreamed(file, read, base, conditions, pathMm, reflection);
+    const failed = await forEachFile(args.positionals, args, (spectra, file, sums) => {
       for (const s of spectra) note(s, pathMm);
       const options = {
         illuminants,
@@ -141,16 +172,29 @@ export const COLOR_COMMAND: CommandSpec = {
         reflection,
         ...(pathMm === undefined ? {} : { pathMm }),
       };
-      for (let from = 0; from < spectra.length; from += SLICE) {
-        const slice = spectra.slice(from, from + SLICE);
-        const plain = fileColorRows(slice, conditions, pathMm, reflection);
-        const sliceRows = uncertainty
-          ? slice.flatMap((s, k) =>
-            withColorUncertainty(plain.slice(k * m, k * m + m), s, uncertainty, options, file)
-          )
-          : plain;
-        if (format === "csv") writeCsv(sliceRows as never, csvKeys, { header: false });
-        else for (const r of sliceRows) rows.push(r);
+      if (sums) {
+        // a table coloured a stretch of rows at a time: one grid, one path, one file
+        const first = spectra[0]!;
+        const labels = {
+          samples: spectra.map((s) => s.meta.sample),
+          pathMm: pathMm ?? first.thicknessMm ?? null,
+          file,
+        };
+        for (let from = 0; from < spectra.length; from += SLICE) {
+          emit(spectraXyzRows(sums, labels, from, Math.min(spectra.length, from + SLICE)));
+        }
+      } else {
+        for (let from = 0; from < spectra.length; from += SLICE) {
+          const slice = spectra.slice(from, from + SLICE);
+          const plain = fileColorRows(slice, conditions, pathMm, reflection);
+          emit(
+            uncertainty
+              ? slice.flatMap((s, k) =>
+                withColorUncertainty(plain.slice(k * m, k * m + m), s, uncertainty, options, file)
+              )
+              : plain,
+          );
+        }
       }
       const s = spectra[0]!;
       const lo = s.wavelengthNm[0]!, hi = s.wavelengthNm[s.wavelengthNm.length - 1]!;
@@ -159,7 +203,7 @@ export const COLOR_COMMAND: CommandSpec = {
           `crystint: ${file}: data cover ${lo}–${hi} nm only; ends extended by constant values (CIE 15)`,
         );
       }
-    });
+    }, streamed);
     const records = rows as unknown as Record<string, unknown>[];
     if (format === "json") console.log(JSON.stringify(rows, null, 2));
     else if (format === "table") {
@@ -186,7 +230,7 @@ export const COLOR_COMMAND: CommandSpec = {
  * (the rows `spectrumColor` gives each spectrum): spectra on one grid at one path go through one
  * pass for all conditions (`spectraColorRows`).
  */
-function fileColorRows(
+export function fileColorRows(
   spectra: Spectrum[],
   conditions: ReturnType<typeof conditionsOf>,
   pathMm: number | undefined,
@@ -214,6 +258,58 @@ function fileColorRows(
     from = to;
   }
   return rows;
+}
+
+/**
+ * A file's colour sums, its table read a stretch of rows at a time (`streamSpectra`) so neither
+ * the file nor its table is ever held: the same spectra (without values) and the same XYZ as
+ * reading it whole and colouring it with {@linkcode fileColorRows}. Undefined when the file is
+ * not read that way or anything goes wrong: the caller then reads it whole, which says exactly
+ * what is wrong and where. A slab rescaled to a shorter path (whose photometric-floor note looks
+ * at all values) and PCHIP grids are read whole too.
+ */
+export async function colorStreamed(
+  file: string,
+  options: ReadOptions,
+  base: AlphaBase,
+  conditions: ReturnType<typeof conditionsOf>,
+  pathMm: number | undefined,
+  reflection: ReflectionSettings,
+): Promise<StreamedFile<SpectraXyz> | undefined> {
+  let source;
+  try {
+    source = await openInputSource(file, options.limits);
+  } catch {
+    return undefined;
+  }
+  try {
+    const text = indexSourceLines(source, STREAM_MAX_LINES);
+    if (!text) return undefined;
+    let shells: Spectrum[] = [];
+    let sums: XyzSums | undefined;
+    const spectra = streamSpectra(text, file, options, {
+      begin(read) {
+        shells = read.map((s) => naturalAlpha(s, base));
+        if (shells.some((s) => floorMatters(s, pathMm))) throw new Error("read whole");
+        sums = new XyzSums(shells[0]!.wavelengthNm, conditions, shells.length);
+      },
+      stretch(s, values, from) {
+        const shell = shells[s]!;
+        const part = naturalAlpha({
+          ...shell,
+          wavelengthNm: shell.wavelengthNm.subarray(from, from + values.length),
+          values,
+        }, base);
+        sums!.add(s, transmittanceForPath(part, pathMm, reflection).values, from);
+      },
+    });
+    if (!spectra || !sums) return undefined;
+    return { spectra: spectra.map((s) => naturalAlpha(s, base)), result: sums.result() };
+  } catch {
+    return undefined;
+  } finally {
+    source.close();
+  }
 }
 
 /** Whether two wavelength grids are the same array or hold the same values. */

@@ -126,6 +126,18 @@ export function transmittanceForPath(
   return { values, warnings: [...floor, ...warnings] };
 }
 
+/**
+ * Whether {@linkcode photometricFloorWarning} looks at the values at all: only a measured slab
+ * (T, A or R, not α) of known thickness rescaled to a shorter path.
+ */
+export function floorMatters(
+  spectrum: Pick<Spectrum, "thicknessMm" | "quantity">,
+  pathMm: number | undefined,
+): boolean {
+  const d = spectrum.thicknessMm;
+  return pathMm !== undefined && d !== undefined && pathMm < d && spectrum.quantity !== "alpha";
+}
+
 /** Measured T below which a point is near the photometric floor (common practice: 0.2 %). */
 export const FLOOR_TRANSMITTANCE = 0.002;
 
@@ -138,10 +150,7 @@ export function photometricFloorWarning(
   spectrum: Spectrum,
   pathMm: number | undefined,
 ): string[] {
-  const d = spectrum.thicknessMm;
-  if (pathMm === undefined || d === undefined || !(pathMm < d) || spectrum.quantity === "alpha") {
-    return [];
-  }
+  if (!floorMatters(spectrum, pathMm)) return [];
   let low = 0, fromNm = Infinity, toNm = -Infinity;
   const a = spectrum.quantity === "absorbance";
   for (let i = 0; i < spectrum.values.length; i++) {
