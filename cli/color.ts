@@ -24,6 +24,7 @@ import type { ReadOptions } from "../lib/io/read_spectra.ts";
 import type { CommandSpec } from "./_command.ts";
 import { MARKS } from "../lib/report/marks.ts";
 import {
+  CsvStdout,
   EXIT,
   listOption,
   log,
@@ -32,7 +33,6 @@ import {
   round,
   toTable,
   UsageError,
-  writeCsv,
 } from "./_shared.ts";
 import {
   ALPHA_NOTE,
@@ -153,11 +153,12 @@ export const COLOR_COMMAND: CommandSpec = {
       ...(uncertainty ? COLOR_UNCERTAINTY_COLUMNS : []),
     ];
     // CSV is written as the rows are made, a slice of spectra at a time (flat memory)
-    if (format === "csv") writeCsv([], csvKeys);
+    const csv = format === "csv" ? new CsvStdout(csvKeys) : undefined;
+    csv?.header();
     const conditions = conditionsOf(illuminants, observers);
     const m = conditions.length;
     const emit = (sliceRows: ColorRow[]) => {
-      if (format === "csv") writeCsv(sliceRows as never, csvKeys, { header: false });
+      if (csv) csv.rows(sliceRows);
       else for (const r of sliceRows) rows.push(r);
     };
     const streamed = uncertainty
@@ -180,8 +181,9 @@ export const COLOR_COMMAND: CommandSpec = {
           pathMm: pathMm ?? first.thicknessMm ?? null,
           file,
         };
-        for (let from = 0; from < spectra.length; from += SLICE) {
-          emit(spectraXyzRows(sums, labels, from, Math.min(spectra.length, from + SLICE)));
+        // a spectrum at a time: its rows die as soon as they are written
+        for (let from = 0; from < spectra.length; from++) {
+          emit(spectraXyzRows(sums, labels, from, from + 1));
         }
       } else {
         for (let from = 0; from < spectra.length; from += SLICE) {
@@ -196,6 +198,7 @@ export const COLOR_COMMAND: CommandSpec = {
           );
         }
       }
+      csv?.flush();
       const s = spectra[0]!;
       const lo = s.wavelengthNm[0]!, hi = s.wavelengthNm[s.wavelengthNm.length - 1]!;
       if (lo > 380 || hi < 780) {
@@ -204,6 +207,7 @@ export const COLOR_COMMAND: CommandSpec = {
         );
       }
     }, streamed);
+    csv?.flush();
     const records = rows as unknown as Record<string, unknown>[];
     if (format === "json") console.log(JSON.stringify(rows, null, 2));
     else if (format === "table") {
@@ -285,26 +289,50 @@ export async function colorStreamed(
   try {
     const text = indexSourceLines(source, STREAM_MAX_LINES);
     if (!text) return undefined;
-    let shells: Spectrum[] = [];
+    let read: readonly Spectrum[] = [], shells: Spectrum[] = [];
     let sums: XyzSums | undefined;
+    // runs of spectra that take the path alike: one transmittance call per run and stretch
+    let runs: number[] = [];
+    let grid = new Float64Array(0);
     const spectra = streamSpectra(text, file, options, {
-      begin(read) {
-        shells = read.map((s) => naturalAlpha(s, base));
+      begin(given) {
+        read = given;
+        shells = given.map((s) => naturalAlpha(s, base));
         if (shells.some((s) => floorMatters(s, pathMm))) throw new Error("read whole");
         sums = new XyzSums(shells[0]!.wavelengthNm, conditions, shells.length);
+        runs = [0];
+        for (let s = 1; s < shells.length; s++) {
+          const a = shells[s - 1]!, b = shells[s]!;
+          if (
+            a.quantity !== b.quantity || a.thicknessMm !== b.thicknessMm ||
+            a.polarisation !== b.polarisation
+          ) runs.push(s);
+        }
+        runs.push(shells.length);
       },
-      stretch(s, values, from) {
-        const shell = shells[s]!;
-        const part = naturalAlpha({
-          ...shell,
-          wavelengthNm: shell.wavelengthNm.subarray(from, from + values.length),
-          values,
-        }, base);
-        sums!.add(s, transmittanceForPath(part, pathMm, reflection).values, from);
+      stretch(values, n, from) {
+        // the grid points of the stretch, once per spectrum, beside the values
+        const nm = shells[0]!.wavelengthNm.subarray(from, from + n);
+        if (grid.length < values.length) grid = new Float64Array(values.length);
+        for (let s = 0; s < shells.length; s++) grid.set(nm, s * n);
+        for (let r = 0; r + 1 < runs.length; r++) {
+          const a = runs[r]!, b = runs[r + 1]!;
+          // every step from values to transmittance is point by point, so a run's stretches
+          // side by side give each point what the spectrum read whole gives it
+          const part = naturalAlpha({
+            ...read[a]!,
+            wavelengthNm: grid.subarray(a * n, b * n),
+            values: values.subarray(a * n, b * n),
+          }, base);
+          const t = transmittanceForPath(part, pathMm, reflection).values;
+          for (let s = a; s < b; s++) sums!.add(s, t.subarray((s - a) * n, (s - a + 1) * n), from);
+        }
       },
     });
     if (!spectra || !sums) return undefined;
-    return { spectra: spectra.map((s) => naturalAlpha(s, base)), result: sums.result() };
+    // the spectra `begin` was given, where no value was clipped
+    const kept = spectra.map((s, k) => s === read[k] ? shells[k]! : naturalAlpha(s, base));
+    return { spectra: kept, result: sums.result() };
   } catch {
     return undefined;
   } finally {

@@ -180,9 +180,12 @@ class LineReader {
   }
 }
 
-/** A line held as its place in a {@linkcode ByteSource}: its bytes are read when needed. */
+/**
+ * A line held as its place in a {@linkcode ByteSource}: its bytes are read, and its text made,
+ * each time they are needed (the few lines whose text is needed are read a few times; kept,
+ * the texts of a wide table's first rows would stay in memory for the whole read).
+ */
 class SourceLine implements Line {
-  #text: string | undefined;
   constructor(
     readonly reader: LineReader,
     readonly start: number,
@@ -191,7 +194,7 @@ class SourceLine implements Line {
     readonly first: number,
   ) {}
   get text(): string {
-    return this.#text ??= ascii.decode(this.reader.read(this.start, this.end));
+    return ascii.decode(this.reader.read(this.start, this.end));
   }
   firstCellOf(delimiter: number): string {
     // a first cell is short: the line's opening bytes say it unless they hold no delimiter
@@ -586,8 +589,10 @@ function streamRows(
   const xs = table.columns[0]!;
   const count = xs.length;
   const size = Math.max(1, Math.min(rows, count));
+  // one buffer for all columns (thousands of small arrays would each be allocated apart)
+  const buffer = new Float64Array(width * size);
   const columns: Float64Array[] = [];
-  for (let k = 0; k < width; k++) columns.push(new Float64Array(size));
+  for (let k = 0; k < width; k++) columns.push(buffer.subarray(k * size, (k + 1) * size));
   for (let from = 0; from < count; from += size) {
     const n = Math.min(size, count - from);
     for (let j = 0; j < n; j++) {

@@ -20,14 +20,15 @@ export interface SpectraStretches {
    */
   begin(spectra: readonly Spectrum[]): void;
   /**
-   * The values of spectrum `s` (0-based) at grid points `from … from + values.length − 1`;
-   * `values` is reused for the next call.
+   * The values of every spectrum at grid points `from … from + points − 1`, spectrum after
+   * spectrum: spectrum s (0-based) at `values[s · points … (s + 1) · points − 1]`. `values` is
+   * reused for the next call.
    */
-  stretch(s: number, values: Float64Array<ArrayBuffer>, from: number): void;
+  stretch(values: Float64Array<ArrayBuffer>, points: number, from: number): void;
 }
 
 /** Values held per stretch, all columns together (our choice: 2²⁰ values, 8 MB). */
-const STRETCH_VALUES = 1 << 20;
+const STRETCH_VALUES = 1 << 15;
 
 const NO_VALUES = new Float64Array(0);
 
@@ -60,6 +61,7 @@ export function streamSpectra(
   let count = 0;
   let clipped: number[] = [];
   let values = NO_VALUES;
+  const shells: Spectrum[] = [];
   let descending = false;
   const limits = resolveReadLimits(options.limits);
   readTextTable(text, file, {
@@ -71,25 +73,26 @@ export function streamSpectra(
         if (descending) return false; // its values run against the grid: read whole
         count = width - 1;
         clipped = new Array(count).fill(0);
-        const shells: Spectrum[] = [];
         for (let c = 1; c < width; c++) shells.push(layout.withValues(c, NO_VALUES, 0));
         to.begin(shells);
         const rows = Math.max(1, Math.floor(stretchValues / width));
-        values = new Float64Array(Math.min(rows, table.columns[0]!.length));
+        values = new Float64Array(count * Math.min(rows, table.columns[0]!.length));
         return rows;
       },
       stretch(columns, n, from) {
-        const out = values.subarray(0, n);
         for (let c = 1; c <= count; c++) {
+          const out = values.subarray((c - 1) * n, c * n);
           clipped[c - 1]! += layout!.values(c, columns[c]!, from, n, out);
-          to.stretch(c - 1, out, from);
         }
+        to.stretch(values.subarray(0, count * n), n, from);
       },
     },
   });
   if (descending || !layout) return undefined;
-  const spectra: Spectrum[] = [];
-  for (let c = 1; c <= count; c++) spectra.push(layout.withValues(c, NO_VALUES, clipped[c - 1]!));
+  // the spectra given to `begin`, but with the note of values clipped where some were
+  const spectra = shells.map((s, k) =>
+    clipped[k] ? layout!.withValues(k + 1, NO_VALUES, clipped[k]!) : s
+  );
   layout.finish();
   return spectra;
 }

@@ -47,7 +47,8 @@ function checkStreamed(bytes: Uint8Array, file: string, whole: ReturnType<typeof
   try {
     spectra = text && streamSpectra(text, file, {}, {
       begin: (s) => s.forEach((x) => values.push(new Float64Array(x.wavelengthNm.length))),
-      stretch: (s, v, from) => values[s]!.set(v, from),
+      stretch: (v, n, from) =>
+        values.forEach((s, k) => s.set(v.subarray(k * n, (k + 1) * n), from)),
     }, 7);
   } catch {
     streamed.threw++;
