@@ -13,6 +13,7 @@ import {
 } from "../lib/cie/spectra_color_many.ts";
 import {
   floorMatters,
+  pathTransmittanceIsValues,
   type ReflectionSettings,
   transmittanceForPath,
 } from "../lib/optics/path_transmittance.ts";
@@ -294,6 +295,7 @@ export async function colorStreamed(
     // runs of spectra that take the path alike: one transmittance call per run and stretch
     let runs: number[] = [];
     let grid = new Float64Array(0);
+    let asRead = false;
     const spectra = streamSpectra(text, file, options, {
       begin(given) {
         read = given;
@@ -309,12 +311,17 @@ export async function colorStreamed(
           ) runs.push(s);
         }
         runs.push(shells.length);
+        // transmittance as read: the values go to the sums as they are (no copy per stretch)
+        asRead = shells.every((s) => pathTransmittanceIsValues(s, pathMm, reflection));
       },
       stretch(values, n, from) {
+        if (asRead) return sums!.addMany(0, values, n, from);
         // the grid points of the stretch, once per spectrum, beside the values
-        const nm = shells[0]!.wavelengthNm.subarray(from, from + n);
+        const nm = shells[0]!.wavelengthNm;
         if (grid.length < values.length) grid = new Float64Array(values.length);
-        for (let s = 0; s < shells.length; s++) grid.set(nm, s * n);
+        for (let s = 0, at = 0; s < shells.length; s++) {
+          for (let k = 0; k < n; k++) grid[at++] = nm[from + k]!;
+        }
         for (let r = 0; r + 1 < runs.length; r++) {
           const a = runs[r]!, b = runs[r + 1]!;
           // every step from values to transmittance is point by point, so a run's stretches
@@ -325,7 +332,7 @@ export async function colorStreamed(
             values: values.subarray(a * n, b * n),
           }, base);
           const t = transmittanceForPath(part, pathMm, reflection).values;
-          for (let s = a; s < b; s++) sums!.add(s, t.subarray((s - a) * n, (s - a + 1) * n), from);
+          sums!.addMany(a, t, n, from);
         }
       },
     });

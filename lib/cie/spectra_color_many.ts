@@ -241,25 +241,36 @@ export class XyzSums {
 
   /** Adds the values `t` of spectrum `s` at grid points `from … from + t.length − 1`. */
   add(s: number, t: Float64Array, from: number): void {
+    this.addMany(s, t, t.length, from);
+  }
+
+  /**
+   * Adds the values of spectra `first`, `first + 1`, … at grid points `from … from + points − 1`,
+   * side by side in `t` (spectrum `first + j` at `t[j · points …]`).
+   */
+  addMany(first: number, t: Float64Array, points: number, from: number): void {
     const { weights, xyz } = this.#sums;
     const m = weights.length;
-    if (from < 0 || from + t.length > this.#n) {
-      throw new RangeError(`Cannot add points ${from}–${from + t.length - 1} of ${this.#n}`);
+    if (from < 0 || from + points > this.#n || t.length % points !== 0) {
+      throw new RangeError(`Cannot add points ${from}–${from + points - 1} of ${this.#n}`);
     }
-    for (let c = 0; c < m; c++) {
-      const w = weights[c]!;
-      const fx = w.wx!, fy = w.wy!, fz = w.wz!;
-      const o = 3 * (s * m + c);
-      let X = xyz[o]!, Y = xyz[o + 1]!, Z = xyz[o + 2]!;
-      for (let k = 0; k < t.length; k++) {
-        const v = t[k]!, i = from + k;
-        X += fx[i]! * v;
-        Y += fy[i]! * v;
-        Z += fz[i]! * v;
+    for (let j = 0; j < t.length / points; j++) {
+      const at = j * points;
+      for (let c = 0; c < m; c++) {
+        const w = weights[c]!;
+        const fx = w.wx!, fy = w.wy!, fz = w.wz!;
+        const o = 3 * ((first + j) * m + c);
+        let X = xyz[o]!, Y = xyz[o + 1]!, Z = xyz[o + 2]!;
+        for (let k = 0; k < points; k++) {
+          const v = t[at + k]!, i = from + k;
+          X += fx[i]! * v;
+          Y += fy[i]! * v;
+          Z += fz[i]! * v;
+        }
+        xyz[o] = X;
+        xyz[o + 1] = Y;
+        xyz[o + 2] = Z;
       }
-      xyz[o] = X;
-      xyz[o + 1] = Y;
-      xyz[o + 2] = Z;
     }
   }
 

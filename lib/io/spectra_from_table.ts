@@ -201,11 +201,18 @@ export interface TableSpectra {
   ordinate(c: number): ColumnOrdinate;
   /**
    * The model's values of column c for data rows `from … from + count − 1` (ascending files
-   * only), written to `out`; returns how many were clipped to 0..1.
+   * only), written to `out` from index `at`; returns how many were clipped to 0..1.
    *
    * @throws {InputError} For a value out of range (with its line).
    */
-  values(c: number, column: Float64Array, from: number, count: number, out: Float64Array): number;
+  values(
+    c: number,
+    column: Float64Array,
+    from: number,
+    count: number,
+    out: Float64Array,
+    at: number,
+  ): number;
   /** The spectrum of column c with its values (or, for `spectrum(c, column)`, from the column). */
   withValues(c: number, values: Float64Array<ArrayBuffer>, clipped: number): Spectrum;
   /** The spectrum of column c from the whole column as read. */
@@ -354,6 +361,7 @@ export function tableSpectra(
     from: number,
     count: number,
     out: Float64Array | undefined,
+    at: number,
   ): number => {
     let clipped = 0;
     const bounded = quantity === "transmittance" || quantity === "reflectance";
@@ -396,7 +404,7 @@ export function tableSpectra(
           } cm-1, beyond any baseline noise over ${alphaPathMm} mm`,
         );
       }
-      if (out) out[k] = v;
+      if (out) out[at + k] = v;
     }
     return clipped;
   };
@@ -450,9 +458,9 @@ export function tableSpectra(
     wavelengthNm,
     descending,
     ordinate,
-    values(c, column, from, count, out) {
+    values(c, column, from, count, out, at) {
       if (descending) throw new RangeError("Cannot convert a stretch of a descending table");
-      return convert(ordinate(c), column, from, count, out);
+      return convert(ordinate(c), column, from, count, out, at);
     },
     withValues,
     spectrum(c, column) {
@@ -462,7 +470,7 @@ export function tableSpectra(
       // the column itself serves as the values when nothing changes them (saves a copy per spectrum)
       const asIs = !descending && rule.scale === 1 && !(bounded && outsideUnit(column));
       const values = asIs ? column : new Float64Array(rows);
-      const clipped = convert(rule, column, 0, rows, asIs ? undefined : values);
+      const clipped = convert(rule, column, 0, rows, asIs ? undefined : values, 0);
       return withValues(c, values, clipped);
     },
     finish() {

@@ -81,8 +81,7 @@ export function streamSpectra(
       },
       stretch(columns, n, from) {
         for (let c = 1; c <= count; c++) {
-          const out = values.subarray((c - 1) * n, c * n);
-          clipped[c - 1]! += layout!.values(c, columns[c]!, from, n, out);
+          clipped[c - 1]! += layout!.values(c, columns[c]!, from, n, values, (c - 1) * n);
         }
         to.stretch(values.subarray(0, count * n), n, from);
       },

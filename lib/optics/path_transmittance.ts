@@ -7,7 +7,11 @@
  * @module
  */
 import type { Spectrum } from "../spectrum/spectrum.ts";
-import { spectrumAbsorbance, transmittanceAtPath } from "../spectrum/ordinate.ts";
+import {
+  spectrumAbsorbance,
+  transmittanceAtPath,
+  transmittanceIsValues,
+} from "../spectrum/ordinate.ts";
 import {
   type Dispersion,
   dispersionIndex,
@@ -88,6 +92,9 @@ export function transmittanceForPath(
   settings: ReflectionSettings = { reflection: "none" },
 ): { values: Float64Array<ArrayBuffer>; warnings: string[] } {
   const floor = photometricFloorWarning(spectrum, pathMm);
+  if (pathTransmittanceIsValues(spectrum, pathMm, settings)) {
+    return { values: spectrum.values.slice(), warnings: floor };
+  }
   if (settings.reflection === "none") {
     return { values: transmittanceAtPath(spectrum, pathMm), warnings: floor };
   }
@@ -136,6 +143,18 @@ export function floorMatters(
 ): boolean {
   const d = spectrum.thicknessMm;
   return pathMm !== undefined && d !== undefined && pathMm < d && spectrum.quantity !== "alpha";
+}
+
+/**
+ * Whether {@linkcode transmittanceForPath} gives the spectrum's values unchanged (a copy): no
+ * surfaces to remove, and transmittance at its measured path (or reflectance).
+ */
+export function pathTransmittanceIsValues(
+  spectrum: Pick<Spectrum, "quantity">,
+  pathMm: number | undefined,
+  settings: ReflectionSettings = { reflection: "none" },
+): boolean {
+  return settings.reflection === "none" && transmittanceIsValues(spectrum, pathMm);
 }
 
 /** Measured T below which a point is near the photometric floor (common practice: 0.2 %). */
