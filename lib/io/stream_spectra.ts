@@ -28,7 +28,7 @@ export interface SpectraStretches {
 }
 
 /** Values held per stretch, all columns together (our choice: 2²⁰ values, 8 MB). */
-const STRETCH_VALUES = 1 << 15;
+const STRETCH_VALUES = 1 << 19;
 
 const NO_VALUES = new Float64Array(0);
 
