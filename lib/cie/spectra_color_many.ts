@@ -254,11 +254,12 @@ export class XyzSums {
     if (from < 0 || from + points > this.#n || t.length % points !== 0) {
       throw new RangeError(`Cannot add points ${from}–${from + points - 1} of ${this.#n}`);
     }
-    for (let j = 0; j < t.length / points; j++) {
-      const at = j * points;
-      for (let c = 0; c < m; c++) {
-        const w = weights[c]!;
-        const fx = w.wx!, fy = w.wy!, fz = w.wz!;
+    const count = t.length / points;
+    for (let c = 0; c < m; c++) {
+      const w = weights[c]!;
+      const fx = w.wx!, fy = w.wy!, fz = w.wz!;
+      for (let j = 0; j < count; j++) {
+        const at = j * points;
         const o = 3 * ((first + j) * m + c);
         let X = xyz[o]!, Y = xyz[o + 1]!, Z = xyz[o + 2]!;
         for (let k = 0; k < points; k++) {
