@@ -9,6 +9,7 @@
 import type { Spectrum } from "../spectrum/spectrum.ts";
 import type { SourceText } from "./byte_source.ts";
 import { readTextTable } from "./read_table.ts";
+import { looksLikeJcamp } from "./read_spectra.ts";
 import { resolveReadLimits } from "./read_limits.ts";
 import { type ReadOptions, type TableSpectra, tableSpectra } from "./spectra_from_table.ts";
 
@@ -27,8 +28,8 @@ export interface SpectraStretches {
   stretch(values: Float64Array<ArrayBuffer>, points: number, from: number): void;
 }
 
-/** Values held per stretch, all columns together (our choice: 2²⁰ values, 8 MB). */
-const STRETCH_VALUES = 1 << 19;
+/** Values held per stretch, all columns together (our choice: 2¹⁷ values, 1 MB per buffer). */
+const STRETCH_VALUES = 1 << 17;
 
 const NO_VALUES = new Float64Array(0);
 
@@ -53,7 +54,7 @@ export function streamSpectra(
   if (
     options.tableReader === "general" || text.source.size === 0 || scan.loneCr || scan.nul ||
     scan.control > 0 || !text.visible ||
-    /^\s*##TITLE\s*=/im.test(new TextDecoder().decode(head))
+    looksLikeJcamp(new TextDecoder().decode(head))
   ) {
     return undefined;
   }
