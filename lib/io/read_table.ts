@@ -285,12 +285,29 @@ function isComment(line: string): boolean {
   return /^\s*#/.test(line);
 }
 
-function chooseDelimiter(sample: string[]): TextTable["delimiter"] {
-  if (sample.some((l) => l.includes("\t"))) return "\t";
-  if (sample.some((l) => l.includes(";"))) return ";";
-  if (sample.some((l) => l.includes(","))) {
+/**
+ * A numeric-looking line sampled to choose the delimiter: what it holds, and its text (quotes
+ * removed) made again when asked, so a wide table's first rows are not kept as text meanwhile.
+ */
+interface SampledLine {
+  tab: boolean;
+  semicolon: boolean;
+  comma: boolean;
+  text(): string;
+}
+
+/** The text of a line with its quotes removed (quoted cells such as "380","0.80" are numbers too). */
+function unquoted(l: Line): string {
+  const text = l.text;
+  return text.includes('"') ? text.replace(/"/g, "") : text;
+}
+
+function chooseDelimiter(sample: SampledLine[]): TextTable["delimiter"] {
+  if (sample.some((l) => l.tab)) return "\t";
+  if (sample.some((l) => l.semicolon)) return ";";
+  if (sample.some((l) => l.comma)) {
     const ws = sample.every((l) => {
-      const f = l.trim().split(/\s+/);
+      const f = l.text().trim().split(/\s+/);
       return f.length >= 2 && f.every((c) => /^[+-]?\d+(,\d+)?([eE][+-]?\d+)?$/.test(c));
     });
     return ws ? "whitespace" : ",";
@@ -377,11 +394,17 @@ export function readTextTable(
       metadata.push({ line: l, comment: true });
     } else if (l.text.trim() !== "") lines.push(l);
   }
-  const numericSample: string[] = [];
+  const numericSample: SampledLine[] = [];
   for (const l of lines) {
-    // quoted cells ("380","0.80") are numbers too
-    const text = l.text.includes('"') ? l.text.replace(/"/g, "") : l.text;
-    if (looksNumeric(text)) numericSample.push(text);
+    const text = unquoted(l);
+    if (looksNumeric(text)) {
+      numericSample.push({
+        tab: text.includes("\t"),
+        semicolon: text.includes(";"),
+        comma: text.includes(","),
+        text: () => unquoted(l),
+      });
+    }
     if (numericSample.length === 50) break;
   }
   if (numericSample.length === 0) {
