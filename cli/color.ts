@@ -155,7 +155,10 @@ export const COLOR_COMMAND: CommandSpec = {
     ];
     // CSV is written as the rows are made, a slice of spectra at a time (flat memory)
     const csv = format === "csv" ? new CsvStdout(csvKeys) : undefined;
+    // the header goes out at once, before any note on stderr, as every row is flushed before the
+    // notes that follow it
     csv?.header();
+    csv?.flush();
     const conditions = conditionsOf(illuminants, observers);
     const m = conditions.length;
     const emit = (sliceRows: ColorRow[]) => {
