@@ -206,21 +206,39 @@ export function checkObservers(names: string[]): string[] {
 }
 
 /**
+ * What a command made of a file read a stretch of rows at a time: the spectra without their
+ * values (`forEachFile` says their notes) and the command's own result.
+ */
+export interface StreamedFile<T> {
+  spectra: Spectrum[];
+  result: T;
+}
+
+/**
  * Reads each file with the shared flags, hands its spectra to `each`, reports failures (with
  * flag wording for what a library error says is missing); returns the failure count. One bad
- * file never stops the others.
+ * file never stops the others. With `streamed`, each file is first offered to it: what it
+ * returns goes to `each` as its third argument (the spectra then carry no values); undefined
+ * (it declines, or failed) reads the file whole as without it.
  */
-export async function forEachFile(
+export async function forEachFile<T = never>(
   files: string[],
   args: ParsedArgs,
-  each: (spectra: Spectrum[], file: string) => void,
+  each: (spectra: Spectrum[], file: string, streamed?: T) => void,
+  streamed?: (
+    file: string,
+    options: ReadOptions,
+    base: AlphaBase,
+  ) => Promise<StreamedFile<T> | undefined>,
 ): Promise<number> {
   const options = readOptionsFrom(args);
   const base = alphaBaseFrom(args);
   let failed = 0;
   for (const file of files) {
     try {
-      const spectra = (await readSpectrumFile(file, options)).map((s) => naturalAlpha(s, base));
+      const quick = await streamed?.(file, options, base);
+      const spectra = quick?.spectra ??
+        (await readSpectrumFile(file, options)).map((s) => naturalAlpha(s, base));
       for (const w of readerWarnings(spectra)) log(`crystint: ${file}: ${w}`);
       // an option outranks the file's own statement, but a disagreement is said once
       const stated = spectra[0]?.meta.fileValues?.thicknessMm?.value;
@@ -237,7 +255,7 @@ export async function forEachFile(
         );
         for (const n of notes) log(`crystint: ${file}: ${n}`);
       }
-      each(spectra, file);
+      each(spectra, file, quick?.result);
     } catch (e) {
       failed++;
       reportFailure(e, file);

@@ -154,18 +154,32 @@ export function spectraColorRows(
   conditions: ColorCondition[],
   labels: SpectraRowLabels = {},
 ): ColorRow[] {
-  const { count, weights, illuminants, xyz } = spectraToXyz(spectra, conditions);
-  const m = conditions.length;
-  const rows: ColorRow[] = new Array(count * m);
+  const sums = spectraToXyz(spectra, conditions);
+  return spectraXyzRows(sums, labels, 0, sums.count);
+}
+
+/**
+ * The colour rows of spectra `from … to − 1` of {@linkcode SpectraXyz} (labelled by their
+ * index in all of them), spectrum after spectrum and condition after condition, as
+ * {@linkcode spectraColorRows} gives them.
+ */
+export function spectraXyzRows(
+  { weights, illuminants, xyz }: SpectraXyz,
+  labels: SpectraRowLabels,
+  from: number,
+  to: number,
+): ColorRow[] {
+  const m = weights.length;
+  const rows: ColorRow[] = new Array((to - from) * m);
   const pathMm = labels.pathMm ?? null;
   const file = labels.file;
-  for (let s = 0; s < count; s++) {
+  for (let s = from; s < to; s++) {
     const meta: Spectrum["meta"] = { sample: labels.samples?.[s] ?? `s${s + 1}` };
     if (file !== undefined) meta.sourceFile = file;
     const carrier = { meta };
     for (let c = 0; c < m; c++) {
       const o = 3 * (s * m + c);
-      rows[s * m + c] = colorRow(
+      rows[(s - from) * m + c] = colorRow(
         carrier,
         illuminants[c]!,
         pathMm,
@@ -175,4 +189,94 @@ export function spectraColorRows(
     }
   }
   return rows;
+}
+
+/**
+ * XYZ of many spectra on one grid under many conditions, summed a stretch of points at a time
+ * (a table read a stretch of rows at a time is never held whole). The sums run over the points
+ * in the order {@linkcode spectraToXyz} runs them, so they are the same numbers. Linear
+ * interpolation methods only (PCHIP grids need whole spectra).
+ *
+ * @example Two perfect transmitters, each given in two stretches, give the D65 2° white
+ * ```ts
+ * import { XyzSums } from "./spectra_color_many.ts";
+ * const nm = Float64Array.from({ length: 81 }, (_, i) => 380 + 5 * i);
+ * const sums = new XyzSums(nm, [{ illuminant: "D65", observer: "2" }], 2);
+ * for (let s = 0; s < 2; s++) {
+ *   sums.add(s, new Float64Array(40).fill(1), 0);
+ *   sums.add(s, new Float64Array(41).fill(1), 40);
+ * }
+ * if (Math.abs(sums.result().xyz[4]! - 100) > 1e-9) throw new Error("white expected");
+ * ```
+ */
+export class XyzSums {
+  readonly #sums: SpectraXyz;
+  readonly #n: number;
+  /**
+   * @throws {RangeError} When the grid needs PCHIP (irregular steps) or does not reach
+   *   360–830 nm.
+   */
+  constructor(wavelengthNm: Float64Array, conditions: ColorCondition[], count: number) {
+    const weights: TristimulusWeights[] = [];
+    const illuminants: string[] = [];
+    for (const c of conditions) {
+      const illuminant = typeof c.illuminant === "string"
+        ? getIlluminant(c.illuminant)
+        : c.illuminant;
+      illuminants.push(illuminant.name);
+      const w = tristimulusWeights(wavelengthNm, illuminant, c.observer);
+      if (w.wx === undefined) {
+        throw new RangeError("Cannot sum XYZ a stretch at a time: the grid needs PCHIP");
+      }
+      weights.push(w);
+    }
+    this.#n = wavelengthNm.length;
+    this.#sums = {
+      count,
+      weights,
+      illuminants,
+      xyz: new Float64Array(3 * conditions.length * count),
+    };
+  }
+
+  /** Adds the values `t` of spectrum `s` at grid points `from … from + t.length − 1`. */
+  add(s: number, t: Float64Array, from: number): void {
+    this.addMany(s, t, t.length, from);
+  }
+
+  /**
+   * Adds the values of spectra `first`, `first + 1`, … at grid points `from … from + points − 1`,
+   * side by side in `t` (spectrum `first + j` at `t[j · points …]`).
+   */
+  addMany(first: number, t: Float64Array, points: number, from: number): void {
+    const { weights, xyz } = this.#sums;
+    const m = weights.length;
+    if (from < 0 || from + points > this.#n || t.length % points !== 0) {
+      throw new RangeError(`Cannot add points ${from}–${from + points - 1} of ${this.#n}`);
+    }
+    const count = t.length / points;
+    for (let c = 0; c < m; c++) {
+      const w = weights[c]!;
+      const fx = w.wx!, fy = w.wy!, fz = w.wz!;
+      for (let j = 0; j < count; j++) {
+        const at = j * points;
+        const o = 3 * ((first + j) * m + c);
+        let X = xyz[o]!, Y = xyz[o + 1]!, Z = xyz[o + 2]!;
+        for (let k = 0; k < points; k++) {
+          const v = t[at + k]!, i = from + k;
+          X += fx[i]! * v;
+          Y += fy[i]! * v;
+          Z += fz[i]! * v;
+        }
+        xyz[o] = X;
+        xyz[o + 1] = Y;
+        xyz[o + 2] = Z;
+      }
+    }
+  }
+
+  /** The sums so far, in the form of {@linkcode spectraToXyz}. */
+  result(): SpectraXyz {
+    return this.#sums;
+  }
 }

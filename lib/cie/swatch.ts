@@ -11,10 +11,6 @@
  *
  * @module
  */
-// A full specifier: a program outside this repository that imports lib/mod.ts by path resolves it
-// without our deno.json (the import map applies only inside the project).
-// deno-lint-ignore no-import-prefix
-import Color from "npm:color@^5.0.0";
 import type { Matrix3 } from "../numeric/matrix3.ts";
 import { adaptXyz, invert, multiply } from "./adaptation.ts";
 import type { Xyz } from "./tristimulus.ts";
@@ -102,21 +98,17 @@ function inGamut(rgb: readonly number[]): boolean {
   return true;
 }
 
-/** CSS hex strings by 24-bit value, so the library formats each colour once. */
-const HEX_CACHE = new Map<number, string>();
-const HEX_CACHE_LIMIT = 1 << 16;
+/** Two lower-case hex digits of each byte value 0–255. */
+const HEX_DIGITS = Array.from({ length: 256 }, (_, v) => v.toString(16).padStart(2, "0"));
 
-/** `#rrggbb` of encoded values 0..1 at 8 bits (IEC 61966-2-1 §5), formatted by `color`. */
-function hexOf(rgb: readonly [number, number, number]): string {
-  const bytes = rgb.map((v) => Math.round(Math.min(1, Math.max(0, v)) * 255)) as number[];
-  const key = (bytes[0]! << 16) | (bytes[1]! << 8) | bytes[2]!;
-  let hex = HEX_CACHE.get(key);
-  if (hex === undefined) {
-    hex = Color.rgb(bytes).hex().toLowerCase();
-    if (HEX_CACHE.size >= HEX_CACHE_LIMIT) HEX_CACHE.clear();
-    HEX_CACHE.set(key, hex);
-  }
-  return hex;
+/**
+ * `#rrggbb` of encoded values 0..1 at 8 bits (IEC 61966-2-1 §5), lower case. Written directly:
+ * the `color` package it was formatted with before (the same text, checked in
+ * test/cie/swatch_hex_test.ts) cost 5 MB of memory to load.
+ */
+export function hexOf(rgb: readonly [number, number, number]): string {
+  const byte = (v: number) => HEX_DIGITS[Math.round(Math.min(1, Math.max(0, v)) * 255)]!;
+  return `#${byte(rgb[0])}${byte(rgb[1])}${byte(rgb[2])}`;
 }
 
 /** The inverse of the CIELAB f (CIE 15:2018 eq. 8.9), as in {@linkcode labToXyz}. */

@@ -8,6 +8,7 @@ import type { Spectrum } from "../spectrum/spectrum.ts";
 import { InputError } from "./input_error.ts";
 import { DEFAULT_READ_LIMITS, type ReadLimits, resolveReadLimits } from "./read_limits.ts";
 import { type ReadOptions, readSpectraFromBytes } from "./read_spectra.ts";
+import type { ByteSource } from "./byte_source.ts";
 
 /** Largest file accepted by default, in bytes (see {@linkcode DEFAULT_READ_LIMITS}). */
 export const MAX_FILE_BYTES = DEFAULT_READ_LIMITS.maxBytes;
@@ -74,6 +75,51 @@ export async function readInputBytes(
   } finally {
     file.close();
   }
+}
+
+/** A {@linkcode ByteSource} on an open file, to be closed when done. */
+export interface FileSource extends ByteSource {
+  /** Closes the file. */
+  close(): void;
+}
+
+/**
+ * Opens a regular file to be read in pieces (see `indexSourceLines`), with the checks of
+ * {@linkcode readInputBytes}; bytes past the size it had when opened are never read.
+ *
+ * @throws {InputError} `not-a-file`, `too-large`, or `unreadable` with the system's reason.
+ */
+export async function openInputSource(
+  path: string,
+  limits: Partial<ReadLimits> = {},
+): Promise<FileSource> {
+  const { maxBytes } = resolveReadLimits(limits);
+  let file: Deno.FsFile;
+  try {
+    file = await Deno.open(path, { read: true });
+  } catch (e) {
+    throw new InputError("unreadable", path, undefined, `Cannot read file: ${reason(e)}`);
+  }
+  const info = await file.stat().catch((e) => {
+    file.close();
+    throw new InputError("unreadable", path, undefined, `Cannot read file: ${reason(e)}`);
+  });
+  if (!info.isFile || info.size > maxBytes) {
+    file.close();
+    if (info.size > maxBytes) throw tooLarge(path, maxBytes);
+    throw new InputError("not-a-file", path, undefined, "Cannot read file: not a regular file");
+  }
+  const size = info.size;
+  return {
+    size,
+    readAt(position: number, into: Uint8Array): number {
+      const room = Math.min(into.length, size - position);
+      if (room <= 0) return 0;
+      file.seekSync(position, Deno.SeekMode.Start);
+      return file.readSync(into.subarray(0, room)) ?? 0;
+    },
+    close: () => file.close(),
+  };
 }
 
 function tooLarge(path: string, maxBytes: number): InputError {

@@ -56,7 +56,7 @@ export function readSpectraFromBytes(
 const HEAD = new TextDecoder();
 
 /** Whether the text opens like a JCAMP-DX file (a `##TITLE=` line in its first 2,000 characters). */
-function looksLikeJcamp(head: string): boolean {
+export function looksLikeJcamp(head: string): boolean {
   return /^\s*##TITLE\s*=/im.test(head);
 }
 

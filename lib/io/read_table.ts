@@ -18,6 +18,7 @@ import { parseNumericBytes, parseNumericLine, WHITESPACE_DELIMITER } from "./par
 import { type ReadLimits, resolveReadLimits } from "./read_limits.ts";
 import { type AsciiScan, scanAscii } from "./ascii_scan.ts";
 import { splitMetadataLine } from "./read_metadata.ts";
+import type { ByteSource, SourceText } from "./byte_source.ts";
 
 /** A located, numeric table read from a text export. */
 export interface TextTable {
@@ -45,6 +46,29 @@ export interface TableReadOptions {
   limits?: Partial<ReadLimits>;
   /** `general` reads every line cell by cell (the reference the fast path is tested against). */
   tableReader?: "auto" | "general";
+  /**
+   * Hands the data rows on a stretch at a time instead of keeping them (see
+   * {@linkcode TableStream}); the returned table then holds only the x column.
+   */
+  stream?: TableStream;
+}
+
+/**
+ * A consumer of a table's rows, a stretch of rows at a time: the table is never held whole.
+ * `begin` receives the table with its x column only (the first cell of each data row, read
+ * before any other cell), then `stretch` each stretch of rows in order.
+ */
+export interface TableStream {
+  /**
+   * Called once, before any stretch, with the table holding only its x column and the number
+   * of columns it has; returns the rows per stretch (at least 1), or false to read no further.
+   */
+  begin(table: TextTable, width: number): number | false;
+  /**
+   * One stretch: `columns[k][j]` is column k of data row `firstRow + j`, j < count. The arrays
+   * are reused for the next stretch.
+   */
+  stretch(columns: readonly Float64Array[], count: number, firstRow: number): void;
 }
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
@@ -60,6 +84,8 @@ interface Line {
   has(code: number): boolean;
   /** Parses the line by the fast path (see `parseNumericLine`). */
   parse(delimiter: number, decimalComma: boolean, columns: Float64Array[], row: number): boolean;
+  /** The first cell, trimmed, of a line without quotes, when the line can say it from its bytes. */
+  firstCellOf?(delimiter: number): string;
 }
 
 /** A line held as text. */
@@ -83,6 +109,23 @@ function isBlank(code: number): boolean {
   return code === 32 || (code >= 9 && code <= 13);
 }
 
+/**
+ * The first cell, trimmed, of the ASCII line `bytes[start … end − 1]`, as splitting its text
+ * would give it (a line without quotes).
+ */
+function firstCellOfBytes(b: Uint8Array, start: number, end: number, delimiter: number): string {
+  let i = start;
+  while (i < end && isBlank(b[i]!)) i++;
+  let stop = i;
+  if (delimiter === WHITESPACE_DELIMITER) {
+    while (stop < end && !isBlank(b[stop]!)) stop++;
+  } else {
+    while (stop < end && b[stop] !== delimiter) stop++;
+    while (stop > i && isBlank(b[stop - 1]!)) stop--;
+  }
+  return ascii.decode(b.subarray(i, stop));
+}
+
 /** A line held as the bytes `bytes[start … end − 1]` of an ASCII export. */
 class ByteLine implements Line {
   #text: string | undefined;
@@ -98,21 +141,8 @@ class ByteLine implements Line {
   get text(): string {
     return this.#text ??= ascii.decode(this.bytes.subarray(this.start, this.end));
   }
-  /** The first cell, trimmed, as splitting the text would give it (a line without quotes). */
-  firstCell(delimiter: number): string {
-    const b = this.bytes;
-    let i = this.start;
-    while (i < this.end && isBlank(b[i]!)) i++;
-    let stop = i;
-    if (delimiter === WHITESPACE_DELIMITER) {
-      while (stop < this.end && !isBlank(b[stop]!)) {
-        stop++;
-      }
-    } else {
-      while (stop < this.end && b[stop] !== delimiter) stop++;
-      while (stop > i && isBlank(b[stop - 1]!)) stop--;
-    }
-    return ascii.decode(b.subarray(i, stop));
+  firstCellOf(delimiter: number): string {
+    return firstCellOfBytes(this.bytes, this.start, this.end, delimiter);
   }
   has(code: number): boolean {
     const at = this.bytes.indexOf(code, this.start);
@@ -129,6 +159,73 @@ class ByteLine implements Line {
       row,
     );
   }
+}
+
+/** Reads lines of a {@linkcode ByteSource} into one reused buffer. */
+class LineReader {
+  #buffer = new Uint8Array(1 << 16);
+  constructor(readonly source: ByteSource) {}
+  /** The bytes from `start` to `end` − 1, valid until the next read. */
+  read(start: number, end: number): Uint8Array {
+    const length = end - start;
+    if (this.#buffer.length < length) this.#buffer = new Uint8Array(length + (length >> 2));
+    const into = this.#buffer.subarray(0, length);
+    let done = 0;
+    while (done < length) {
+      const n = this.source.readAt(start + done, into.subarray(done));
+      if (n === 0) throw new Error(`Cannot read bytes ${start}–${end}: the file got shorter`);
+      done += n;
+    }
+    return into;
+  }
+}
+
+/**
+ * A line held as its place in a {@linkcode ByteSource}: its bytes are read, and its text made,
+ * each time they are needed (the few lines whose text is needed are read a few times; kept,
+ * the texts of a wide table's first rows would stay in memory for the whole read).
+ */
+class SourceLine implements Line {
+  constructor(
+    readonly reader: LineReader,
+    readonly start: number,
+    readonly end: number,
+    readonly no: number,
+    readonly first: number,
+  ) {}
+  get text(): string {
+    return ascii.decode(this.reader.read(this.start, this.end));
+  }
+  firstCellOf(delimiter: number): string {
+    // a first cell is short: the line's opening bytes say it unless they hold no delimiter
+    for (let size = 256;; size *= 16) {
+      const end = Math.min(this.end, this.start + size);
+      const bytes = this.reader.read(this.start, end);
+      let i = 0;
+      while (i < bytes.length && isBlank(bytes[i]!)) i++;
+      const stop = delimiter === WHITESPACE_DELIMITER
+        ? bytes.findIndex((b, k) => k > i && isBlank(b))
+        : bytes.indexOf(delimiter);
+      if (stop >= 0 || end === this.end) return firstCellOfBytes(bytes, 0, bytes.length, delimiter);
+    }
+  }
+  has(code: number): boolean {
+    return this.reader.read(this.start, this.end).includes(code);
+  }
+  parse(delimiter: number, decimalComma: boolean, columns: Float64Array[], row: number): boolean {
+    const bytes = this.reader.read(this.start, this.end);
+    return parseNumericBytes(bytes, 0, bytes.length, delimiter, decimalComma, columns, row);
+  }
+}
+
+/** The lines of an indexed source (see `indexSourceLines`). */
+function sourceLines(text: SourceText): Line[] {
+  const reader = new LineReader(text.source);
+  const out: Line[] = new Array(text.starts.length);
+  for (let i = 0; i < out.length; i++) {
+    out[i] = new SourceLine(reader, text.starts[i]!, text.ends[i]!, i + 1, text.firsts[i]!);
+  }
+  return out;
 }
 
 /** One split line: its cells and its 1-based line number. */
@@ -188,12 +285,29 @@ function isComment(line: string): boolean {
   return /^\s*#/.test(line);
 }
 
-function chooseDelimiter(sample: string[]): TextTable["delimiter"] {
-  if (sample.some((l) => l.includes("\t"))) return "\t";
-  if (sample.some((l) => l.includes(";"))) return ";";
-  if (sample.some((l) => l.includes(","))) {
+/**
+ * A numeric-looking line sampled to choose the delimiter: what it holds, and its text (quotes
+ * removed) made again when asked, so a wide table's first rows are not kept as text meanwhile.
+ */
+interface SampledLine {
+  tab: boolean;
+  semicolon: boolean;
+  comma: boolean;
+  text(): string;
+}
+
+/** The text of a line with its quotes removed (quoted cells such as "380","0.80" are numbers too). */
+function unquoted(l: Line): string {
+  const text = l.text;
+  return text.includes('"') ? text.replace(/"/g, "") : text;
+}
+
+function chooseDelimiter(sample: SampledLine[]): TextTable["delimiter"] {
+  if (sample.some((l) => l.tab)) return "\t";
+  if (sample.some((l) => l.semicolon)) return ";";
+  if (sample.some((l) => l.comma)) {
     const ws = sample.every((l) => {
-      const f = l.trim().split(/\s+/);
+      const f = l.text().trim().split(/\s+/);
       return f.length >= 2 && f.every((c) => /^[+-]?\d+(,\d+)?([eE][+-]?\d+)?$/.test(c));
     });
     return ws ? "whitespace" : ",";
@@ -238,8 +352,10 @@ export function parseNumberCell(cell: string, decimalComma: boolean): number | u
 
 /** The first cell of a line as {@linkcode splitCells} would give it, without splitting the rest. */
 function firstCell(l: Line, delimiter: TextTable["delimiter"], file: string): string {
-  if (l instanceof ByteLine && !l.has(34)) {
-    return l.firstCell(delimiter === "whitespace" ? WHITESPACE_DELIMITER : delimiter.charCodeAt(0));
+  if (l.firstCellOf && !l.has(34)) {
+    return l.firstCellOf(
+      delimiter === "whitespace" ? WHITESPACE_DELIMITER : delimiter.charCodeAt(0),
+    );
   }
   if (delimiter === "whitespace") return l.text.trim().split(/\s+/, 1)[0] ?? "";
   if (l.text.includes('"')) return splitCells(l, delimiter, file)[0] ?? "";
@@ -254,12 +370,16 @@ function firstCell(l: Line, delimiter: TextTable["delimiter"], file: string): st
  *   `malformed` for a bad row inside the table (with its line number), `too-large` past a cap.
  */
 export function readTextTable(
-  text: string | AsciiText,
+  text: string | AsciiText | SourceText,
   file: string,
   options: TableReadOptions = {},
 ): TextTable {
   const limits = resolveReadLimits(options.limits);
-  const all = typeof text === "string" ? splitLines(text) : splitByteLines(text.bytes);
+  const all = typeof text === "string"
+    ? splitLines(text)
+    : "source" in text
+    ? sourceLines(text)
+    : splitByteLines(text.bytes);
   // metadata lines (comments, preamble, footer), turned into fields in file order at the end
   const metadata: { line: Line; comment: boolean }[] = [];
   const addField = (line: Line) => metadata.push({ line, comment: false });
@@ -274,11 +394,17 @@ export function readTextTable(
       metadata.push({ line: l, comment: true });
     } else if (l.text.trim() !== "") lines.push(l);
   }
-  const numericSample: string[] = [];
+  const numericSample: SampledLine[] = [];
   for (const l of lines) {
-    // quoted cells ("380","0.80") are numbers too
-    const text = l.text.includes('"') ? l.text.replace(/"/g, "") : l.text;
-    if (looksNumeric(text)) numericSample.push(text);
+    const text = unquoted(l);
+    if (looksNumeric(text)) {
+      numericSample.push({
+        tab: text.includes("\t"),
+        semicolon: text.includes(";"),
+        comma: text.includes(","),
+        text: () => unquoted(l),
+      });
+    }
     if (numericSample.length === 50) break;
   }
   if (numericSample.length === 0) {
@@ -361,43 +487,33 @@ export function readTextTable(
 
   const maxRows = Math.min(limits.maxPoints, Math.floor(limits.maxValues / width));
   const capacity = Math.min(lines.length - start, maxRows);
-  const columns: Float64Array<ArrayBuffer>[] = [];
-  for (let k = 0; k < width; k++) columns.push(new Float64Array(capacity));
-  const rowLines: number[] = [];
   const fast = options.tableReader !== "general";
   const delimiterCode = delimiter === "whitespace" ? WHITESPACE_DELIMITER : delimiter.charCodeAt(0);
-  let count = 0;
-  for (let i = start; i < lines.length; i++) {
-    const l = lines[i]!;
-    if (count === capacity) {
-      if (!looksNumeric(firstCell(l, delimiter, file))) {
-        for (let j = i; j < lines.length; j++) addField(lines[j]!);
-        break;
-      }
-      throw new InputError(
-        "too-large",
-        file,
-        l.no,
-        `Table has more than ${maxRows} rows of ${width} columns; at most ${limits.maxPoints} points and ${limits.maxValues} values are read`,
-      );
-    }
-    if (fast && l.parse(delimiterCode, decimalComma, columns, count)) {
-      rowLines.push(l.no);
-      count++;
-      continue;
-    }
+  /** The too-large error of a data row found past the capacity. */
+  const tooManyRows = (l: Line) =>
+    new InputError(
+      "too-large",
+      file,
+      l.no,
+      `Table has more than ${maxRows} rows of ${width} columns; at most ${limits.maxPoints} points and ${limits.maxValues} values are read`,
+    );
+  /**
+   * Reads line i into `columns[k][row]`: true for a data row, false for the first line after the
+   * table (a footer line); throws for a bad row.
+   */
+  const readRow = (i: number, columns: Float64Array[], row: number): boolean => {
+    if (fast && lines[i]!.parse(delimiterCode, decimalComma, columns, row)) return true;
     const r = record(i);
     if (!looksNumeric(r.cells[0] ?? "")) {
       const nonFinite = r.cells.find((c) => NON_FINITE.test(c.trim()));
       if (nonFinite !== undefined) throw cellError(file, nonFinite, r.no, decimalComma);
-      for (let j = i; j < lines.length; j++) addField(lines[j]!);
-      break;
+      return false;
     }
     for (let k = 0; k < r.cells.length; k++) {
       const v = parseNumberCell(r.cells[k]!, decimalComma);
       if (v === undefined) throw cellError(file, r.cells[k]!, r.no, decimalComma);
       if (!Number.isFinite(v)) throw cellError(file, r.cells[k]!, r.no, decimalComma);
-      if (k < width) columns[k]![count] = v;
+      if (k < width) columns[k]![row] = v;
     }
     if (r.cells.length !== width) {
       throw new InputError(
@@ -408,8 +524,50 @@ export function readTextTable(
       );
     }
     cache[i] = undefined;
-    rowLines.push(r.no);
-    count++;
+    return true;
+  };
+  const rowLines: number[] = [];
+  let columns: Float64Array<ArrayBuffer>[] = [];
+  let count = 0;
+  if (!options.stream) {
+    for (let k = 0; k < width; k++) columns.push(new Float64Array(capacity));
+    for (let i = start; i < lines.length; i++) {
+      const l = lines[i]!;
+      if (count === capacity) {
+        if (!looksNumeric(firstCell(l, delimiter, file))) {
+          for (let j = i; j < lines.length; j++) addField(lines[j]!);
+          break;
+        }
+        throw tooManyRows(l);
+      }
+      if (!readRow(i, columns, count)) {
+        for (let j = i; j < lines.length; j++) addField(lines[j]!);
+        break;
+      }
+      rowLines.push(l.no);
+      count++;
+    }
+    if (count < capacity) columns = columns.map((c) => c.slice(0, count));
+  } else {
+    // the x column first: a data row is a line whose first cell looks numeric, exactly the
+    // lines the loop above keeps (the fast path parses only such lines)
+    const xs: number[] = [];
+    for (let i = start; i < lines.length; i++) {
+      const l = lines[i]!;
+      const cell = firstCell(l, delimiter, file);
+      if (!looksNumeric(cell)) {
+        if (count < capacity) readRow(i, [], 0); // a non-finite cell there is refused as above
+        for (let j = i; j < lines.length; j++) addField(lines[j]!);
+        break;
+      }
+      if (count === capacity) throw tooManyRows(l);
+      const x = parseNumberCell(cell, decimalComma);
+      if (x === undefined || !Number.isFinite(x)) throw cellError(file, cell, l.no, decimalComma);
+      xs.push(x);
+      rowLines.push(l.no);
+      count++;
+    }
+    columns = [Float64Array.from(xs)];
   }
   const fields: Record<string, string> = {};
   const fieldLines: Record<string, number> = {};
@@ -425,7 +583,7 @@ export function readTextTable(
   const table: TextTable = {
     delimiter,
     decimalComma,
-    columns: count === capacity ? columns : columns.map((c) => c.slice(0, count)),
+    columns,
     rowLines,
     fields,
     fieldLines,
@@ -433,7 +591,40 @@ export function readTextTable(
   };
   if (header) table.header = header;
   if (headerLine !== undefined) table.headerLine = headerLine;
+  if (options.stream) {
+    streamRows(options.stream, table, width, (i, c, r) => readRow(start + i, c, r));
+  }
   return table;
+}
+
+/**
+ * Reads the data rows of a table whose x column is known a stretch at a time into reused
+ * columns and hands each stretch on; a row that reads otherwise than the x pass saw it throws.
+ */
+function streamRows(
+  stream: TableStream,
+  table: TextTable,
+  width: number,
+  readRow: (index: number, columns: Float64Array[], row: number) => boolean,
+): void {
+  const rows = stream.begin(table, width);
+  if (rows === false) return;
+  const xs = table.columns[0]!;
+  const count = xs.length;
+  const size = Math.max(1, Math.min(rows, count));
+  // one buffer for all columns (thousands of small arrays would each be allocated apart)
+  const buffer = new Float64Array(width * size);
+  const columns: Float64Array[] = [];
+  for (let k = 0; k < width; k++) columns.push(buffer.subarray(k * size, (k + 1) * size));
+  for (let from = 0; from < count; from += size) {
+    const n = Math.min(size, count - from);
+    for (let j = 0; j < n; j++) {
+      if (!readRow(from + j, columns, j) || !Object.is(columns[0]![j], xs[from + j])) {
+        throw new Error(`Cannot stream line ${table.rowLines[from + j]}: it reads otherwise twice`);
+      }
+    }
+    stream.stretch(columns, n, from);
+  }
 }
 
 function cellError(file: string, cell: string, line: number, decimalComma: boolean): InputError {

@@ -165,8 +165,76 @@ export function spectraFromTable(
   file: string,
   options: ReadOptions = {},
 ): Spectrum[] {
+  const layout = tableSpectra(table, file, options, table.columns.length);
+  const spectra: Spectrum[] = [];
+  for (let c = 1; c < table.columns.length; c++) {
+    spectra.push(layout.spectrum(c, table.columns[c]!));
+  }
+  layout.finish();
+  return spectra;
+}
+
+/** How the values of one ordinate column become the values of its spectrum. */
+export interface ColumnOrdinate {
+  /** What the column holds, as the file or the options say. */
+  kind: OrdinateKind;
+  quantity: Quantity;
+  /** Factor from the values as written to the model's values. */
+  scale: number;
+}
+
+/**
+ * The spectra of a table before their values: the grid (x validated), and for each ordinate
+ * column its quantity, sample and metadata, so a table read a stretch of rows at a time gives
+ * the same spectra as one read whole.
+ */
+export interface TableSpectra {
+  /** The wavelengths, ascending, nm. */
+  wavelengthNm: Float64Array<ArrayBuffer>;
+  /** Whether the file lists x descending. */
+  descending: boolean;
+  /**
+   * The ordinate of column c (1-based).
+   *
+   * @throws {InputError} `ambiguous-ordinate` when neither file nor options say it.
+   */
+  ordinate(c: number): ColumnOrdinate;
+  /**
+   * The model's values of column c for data rows `from … from + count − 1` (ascending files
+   * only), written to `out` from index `at`; returns how many were clipped to 0..1.
+   *
+   * @throws {InputError} For a value out of range (with its line).
+   */
+  values(
+    c: number,
+    column: Float64Array,
+    from: number,
+    count: number,
+    out: Float64Array,
+    at: number,
+  ): number;
+  /** The spectrum of column c with its values (or, for `spectrum(c, column)`, from the column). */
+  withValues(c: number, values: Float64Array<ArrayBuffer>, clipped: number): Spectrum;
+  /** The spectrum of column c from the whole column as read. */
+  spectrum(c: number, column: Float64Array<ArrayBuffer>): Spectrum;
+  /** To be called after the last column: adds the file's notes on all columns. */
+  finish(): void;
+}
+
+/**
+ * The {@linkcode TableSpectra} of a table whose first column is its x column (the others need
+ * not be there: `width` says how many columns the table has).
+ *
+ * @throws {InputError} For duplicate or non-monotonic x, too few points, or an axis the file
+ *   does not determine.
+ */
+export function tableSpectra(
+  table: TextTable,
+  file: string,
+  options: ReadOptions,
+  width: number,
+): TableSpectra {
   const { columns, rowLines } = table;
-  const width = columns.length;
   const rows = columns[0]?.length ?? 0;
   let header = table.header;
   if (header && header.length !== width) {
@@ -259,27 +327,14 @@ export function spectraFromTable(
   // absorbance below MIN_ABSORBANCE: A = α·d / ln 10 with d in cm
   const alphaPathMm = thicknessMm ?? 0.1;
   const minAlpha = MIN_ABSORBANCE * Math.LN10 / (alphaPathMm / 10);
-  const spectra: Spectrum[] = [];
   let ordinateConflict = false;
-  for (let c = 1; c < width; c++) {
-    const column = columns[c]!;
-    checkFinite(column, rowLines, file);
-    const reading = header ? readOrdinateHeader(header[c]!) : {};
-    const fileOrdinate = reading.ordinate
-      ? fileValue(reading.ordinate, "header", header![c]!, headerLine)
-      : fieldOrdinate
-      ? fileValue(
-        fieldOrdinate,
-        "field",
-        ordinateField!.key,
-        table.fieldLines?.[ordinateField!.key],
-      )
-      : undefined;
-    if (reading.ordinate && fieldOrdinate && reading.ordinate !== fieldOrdinate) {
-      ordinateConflict = true;
-    }
-    const kind = options.ordinate ?? reading.ordinate ??
-      fieldOrdinate;
+  const readings: (HeaderReading & { rule?: ColumnOrdinate })[] = [];
+  const reading = (c: number) => readings[c] ??= header ? readOrdinateHeader(header[c]!) : {};
+  const ordinate = (c: number): ColumnOrdinate => {
+    const r = reading(c);
+    if (r.rule) return r.rule;
+    if (r.ordinate && fieldOrdinate && r.ordinate !== fieldOrdinate) ordinateConflict = true;
+    const kind = options.ordinate ?? r.ordinate ?? fieldOrdinate;
     if (!kind) {
       throw new InputError(
         "ambiguous-ordinate",
@@ -297,14 +352,21 @@ export function spectraFromTable(
     const decadic = quantity === "alpha" &&
       (/decadic|alpha\s*10|α\s*10/i.test(said) ||
         (options.alphaBase === "10" && !/natural|napierian|\bln\b/i.test(said)));
-    const scale = decadic ? unitScale * Math.LN10 : unitScale;
+    return r.rule = { kind, quantity, scale: decadic ? unitScale * Math.LN10 : unitScale };
+  };
+  /** Converts the values of rows order[k] (or k), k < count, into out[k]; the clipped count. */
+  const convert = (
+    { kind, quantity, scale }: ColumnOrdinate,
+    column: Float64Array,
+    from: number,
+    count: number,
+    out: Float64Array | undefined,
+    at: number,
+  ): number => {
     let clipped = 0;
     const bounded = quantity === "transmittance" || quantity === "reflectance";
-    // the column itself serves as the values when nothing changes them (saves a copy per spectrum)
-    const asIs = !descending && scale === 1 && !(bounded && outsideUnit(column));
-    const values = asIs ? column : new Float64Array(rows);
-    for (let k = 0; k < rows; k++) {
-      const i = order[k]!;
+    for (let k = 0; k < count; k++) {
+      const i = descending ? order[k]! : k;
       const shown = column[i]!;
       let v = shown * scale;
       if (bounded) {
@@ -314,7 +376,7 @@ export function spectraFromTable(
           throw new InputError(
             "out-of-range",
             file,
-            rowLines[i],
+            rowLines[from + i],
             `${kind === "percent" ? "%T" : "T"} value ${shown} is outside 0..${
               scale === 1 ? 1 : 100
             } beyond noise${hint}`,
@@ -329,26 +391,39 @@ export function spectraFromTable(
         throw new InputError(
           "out-of-range",
           file,
-          rowLines[i],
+          rowLines[from + i],
           `Absorbance ${shown} is below ${MIN_ABSORBANCE}, beyond any baseline noise (T would exceed 1)`,
         );
       } else if (quantity === "alpha" && v < minAlpha) {
         throw new InputError(
           "out-of-range",
           file,
-          rowLines[i],
+          rowLines[from + i],
           `α ${shown} cm-1 is below ${
             minAlpha.toPrecision(3)
           } cm-1, beyond any baseline noise over ${alphaPathMm} mm`,
         );
       }
-      if (!asIs) values[k] = v;
+      if (out) out[at + k] = v;
     }
+    return clipped;
+  };
+  const withValues = (c: number, values: Float64Array<ArrayBuffer>, clipped: number): Spectrum => {
+    const r = reading(c);
+    const { quantity } = ordinate(c);
+    const fileOrdinate = r.ordinate
+      ? fileValue(r.ordinate, "header", header![c]!, headerLine)
+      : fieldOrdinate
+      ? fileValue(
+        fieldOrdinate,
+        "field",
+        ordinateField!.key,
+        table.fieldLines?.[ordinateField!.key],
+      )
+      : undefined;
     const multi = width > 2;
     // a single data column is named after its file unless the header names a sample
-    const headerName = !multi && reading.name && isGenericName(reading.name)
-      ? undefined
-      : reading.name;
+    const headerName = !multi && r.name && isGenericName(r.name) ? undefined : r.name;
     const sample = headerName ?? (multi ? undefined : sampleField) ??
       (multi ? `${baseName(file)}#${c}` : baseName(file));
     const meta: SpectrumMeta = {
@@ -377,16 +452,38 @@ export function spectraFromTable(
     }
     if (thicknessMm !== undefined) spectrum.thicknessMm = thicknessMm;
     if (polarisation) spectrum.polarisation = polarisation;
-    spectra.push(spectrum);
-  }
-  if (ordinateConflict && !options.ordinate) {
-    fileWarnings.push({
-      message: "the column header and a preamble line name different ordinates; the header is used",
-      need: "ordinate",
-    });
-  }
-  Object.freeze(fileWarnings);
-  return spectra;
+    return spectrum;
+  };
+  return {
+    wavelengthNm,
+    descending,
+    ordinate,
+    values(c, column, from, count, out, at) {
+      if (descending) throw new RangeError("Cannot convert a stretch of a descending table");
+      return convert(ordinate(c), column, from, count, out, at);
+    },
+    withValues,
+    spectrum(c, column) {
+      checkFinite(column, rowLines, file);
+      const rule = ordinate(c);
+      const bounded = rule.quantity === "transmittance" || rule.quantity === "reflectance";
+      // the column itself serves as the values when nothing changes them (saves a copy per spectrum)
+      const asIs = !descending && rule.scale === 1 && !(bounded && outsideUnit(column));
+      const values = asIs ? column : new Float64Array(rows);
+      const clipped = convert(rule, column, 0, rows, asIs ? undefined : values, 0);
+      return withValues(c, values, clipped);
+    },
+    finish() {
+      if (ordinateConflict && !options.ordinate) {
+        fileWarnings.push({
+          message:
+            "the column header and a preamble line name different ordinates; the header is used",
+          need: "ordinate",
+        });
+      }
+      Object.freeze(fileWarnings);
+    },
+  };
 }
 
 /** Whether any value lies outside 0..1 (and would be clipped or refused). */

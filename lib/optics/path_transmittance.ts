@@ -11,6 +11,7 @@ import {
   absorbanceToTransmittance,
   spectrumAbsorbance,
   transmittanceAtPath,
+  transmittanceIsValues,
 } from "../spectrum/ordinate.ts";
 import {
   type Dispersion,
@@ -168,6 +169,30 @@ export function pathRescaling(
   };
 }
 
+/**
+ * Whether {@linkcode photometricFloorWarning} looks at the values at all: only a measured slab
+ * (T, A or R, not α) of known thickness rescaled to a shorter path.
+ */
+export function floorMatters(
+  spectrum: Pick<Spectrum, "thicknessMm" | "quantity">,
+  pathMm: number | undefined,
+): boolean {
+  const d = spectrum.thicknessMm;
+  return pathMm !== undefined && d !== undefined && pathMm < d && spectrum.quantity !== "alpha";
+}
+
+/**
+ * Whether {@linkcode transmittanceForPath} gives the spectrum's values unchanged (a copy): no
+ * surfaces to remove, and transmittance at its measured path (or reflectance).
+ */
+export function pathTransmittanceIsValues(
+  spectrum: Pick<Spectrum, "quantity">,
+  pathMm: number | undefined,
+  settings: ReflectionSettings = { reflection: "none" },
+): boolean {
+  return settings.reflection === "none" && transmittanceIsValues(spectrum, pathMm);
+}
+
 /** Measured T below which a point is near the photometric floor (common practice: 0.2 %). */
 export const FLOOR_TRANSMITTANCE = 0.002;
 
@@ -180,10 +205,7 @@ export function photometricFloorWarning(
   spectrum: Spectrum,
   pathMm: number | undefined,
 ): string[] {
-  const d = spectrum.thicknessMm;
-  if (pathMm === undefined || d === undefined || !(pathMm < d) || spectrum.quantity === "alpha") {
-    return [];
-  }
+  if (!floorMatters(spectrum, pathMm)) return [];
   let low = 0, fromNm = Infinity, toNm = -Infinity;
   const a = spectrum.quantity === "absorbance";
   for (let i = 0; i < spectrum.values.length; i++) {

@@ -59,6 +59,18 @@ export function spectrumAbsorbance(spectrum: Spectrum): Float64Array<ArrayBuffer
 }
 
 /**
+ * Whether {@linkcode transmittanceAtPath} gives the spectrum's values unchanged (a copy):
+ * reflectance, or transmittance at its measured path.
+ */
+export function transmittanceIsValues(
+  spectrum: Pick<Spectrum, "quantity">,
+  pathMm?: number,
+): boolean {
+  return spectrum.quantity === "reflectance" ||
+    (pathMm === undefined && spectrum.quantity === "transmittance");
+}
+
+/**
  * Transmittance of a spectrum rescaled to another path length by Beer–Lambert
  * (absorbance proportional to path; surface reflections are not separated here).
  *
@@ -69,11 +81,8 @@ export function transmittanceAtPath(
   spectrum: Spectrum,
   pathMm?: number,
 ): Float64Array<ArrayBuffer> {
-  if (spectrum.quantity === "reflectance") return spectrum.values.slice();
-  if (pathMm === undefined) {
-    if (spectrum.quantity === "transmittance") return spectrum.values.slice();
-    return spectrumAbsorbance(spectrum).map(absorbanceToTransmittance);
-  }
+  if (transmittanceIsValues(spectrum, pathMm)) return spectrum.values.slice();
+  if (pathMm === undefined) return spectrumAbsorbance(spectrum).map(absorbanceToTransmittance);
   if (!(pathMm >= 0)) throw new RangeError(`Cannot use path ${pathMm} mm: must be ≥ 0`);
   if (spectrum.quantity === "alpha") {
     return spectrum.values.map((v) => absorbanceToTransmittance(alphaPerCmToAbsorbance(v, pathMm)));

@@ -5,6 +5,8 @@ import { InputError, readSpectraFromBytes, readSpectraFromText } from "../../lib
 import { decodeText } from "../../lib/io/decode_text.ts";
 import { parseNumericLine, WHITESPACE_DELIMITER } from "../../lib/io/parse_numeric_line.ts";
 import type { Spectrum } from "../../lib/spectrum/spectrum.ts";
+import { indexSourceLines } from "../../lib/io/byte_source.ts";
+import { streamSpectra } from "../../lib/io/stream_spectra.ts";
 
 const root = decodeURIComponent(new URL("../fixtures/exports/", import.meta.url).pathname);
 
@@ -21,6 +23,43 @@ function outcome(bytes: Uint8Array, file: string, route: "auto" | "text" | "gene
     if (!(e instanceof InputError)) throw e;
     return { error: { problem: e.problem, line: e.line, message: e.message } };
   }
+}
+
+/** Counts of the stream route's outcomes: read, declined, refused by throwing. */
+const streamed = { read: 0, declined: 0, threw: 0 };
+
+/**
+ * Reads the bytes a stretch of 7 values at a time (`streamSpectra`) and puts each spectrum's
+ * values back together; the stream route may decline or throw, never read other spectra.
+ */
+function checkStreamed(bytes: Uint8Array, file: string, whole: ReturnType<typeof outcome>) {
+  const source = {
+    size: bytes.length,
+    readAt: (p: number, into: Uint8Array) => {
+      const part = bytes.subarray(p, p + into.length);
+      into.set(part);
+      return part.length;
+    },
+  };
+  const text = indexSourceLines(source, 1000);
+  let spectra: Spectrum[] | undefined;
+  const values: Float64Array<ArrayBuffer>[] = [];
+  try {
+    spectra = text && streamSpectra(text, file, {}, {
+      begin: (s) => s.forEach((x) => values.push(new Float64Array(x.wavelengthNm.length))),
+      stretch: (v, n, from) =>
+        values.forEach((s, k) => s.set(v.subarray(k * n, (k + 1) * n), from)),
+    }, 7);
+  } catch {
+    streamed.threw++;
+    return;
+  }
+  if (!spectra) {
+    streamed.declined++;
+    return;
+  }
+  streamed.read++;
+  expectSame({ spectra: spectra.map((s, i) => ({ ...s, values: values[i]! })) }, whole);
 }
 
 /** The bit patterns of a Float64Array (so −0 ≠ 0 and NaN = NaN), for bitwise comparison. */
@@ -100,6 +139,7 @@ describe("the fast reader and the general reader give identical spectra", () => 
         const bytes = Deno.readFileSync(root + sub + "/" + entry.name);
         const general = outcome(bytes, entry.name, "general");
         expectSame(outcome(bytes, entry.name, "auto"), general);
+        checkStreamed(bytes, entry.name, general);
         expectSame(outcome(bytes, entry.name, "text"), general);
       });
     }
@@ -182,6 +222,7 @@ describe("the fast reader and the general reader give identical spectra", () => 
         const general = outcome(bytes, "gen.csv", "general");
         expectSame(fast, general);
         expectSame(outcome(bytes, "gen.csv", "text"), general);
+        checkStreamed(bytes, "gen.csv", general);
         if (fast.spectra) read++;
         else failed++;
       }),
@@ -191,5 +232,8 @@ describe("the fast reader and the general reader give identical spectra", () => 
     console.log(`generated tables: ${read} read, ${failed} refused`);
     expect(read).toBeGreaterThan(100);
     expect(failed).toBeGreaterThan(100);
+    // the stretch route must have read most of what reads (the rest: refused or declined)
+    console.log(`a stretch at a time: ${JSON.stringify(streamed)}`);
+    expect(streamed.read).toBeGreaterThan(100);
   });
 });
