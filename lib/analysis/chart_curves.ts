@@ -113,13 +113,15 @@ export function packSteps(values: number[], decimals: number): StoredCurve {
   if (!values.every(Number.isFinite)) return values;
   const q = 10 ** decimals;
   let steps = values.map((v) => Math.round(v * q) || 0);
-  let best = { order: 1, steps, length: Infinity };
+  let best: { order: number; steps: number[]; length: number } | undefined;
   for (let order = 1; order <= MAX_ORDER; order++) {
     steps = stepsOf(steps);
+    // steps past the safe integers (values beyond about 10⁹ at 5 decimals) are not written
+    if (!steps.every((k) => Number.isSafeInteger(k) && Math.abs(k) < 2 ** 52)) break;
     const length = textLengthOf(steps);
-    if (length < best.length) best = { order, steps, length };
+    if (!best || length < best.length) best = { order, steps, length };
   }
-  return { q, order: best.order, text: integersToText(best.steps) };
+  return best ? { q, order: best.order, text: integersToText(best.steps) } : values;
 }
 
 /**

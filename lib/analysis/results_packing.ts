@@ -101,6 +101,28 @@ const ASSIGNMENT_KEYS = [
 ];
 
 /** Change fields that repeat the colour rows: [change key, colour key, which colour]. */
+/** The keys of a colour change in the order the analysis writes them (`change_step.ts`). */
+const CHANGE_KEY_ORDER = [
+  "from",
+  "to",
+  "observer",
+  "adapt",
+  "dE00",
+  "dEab",
+  "dL",
+  "dC",
+  "dh",
+  "labFrom",
+  "labTo",
+  "chromaFrom",
+  "chromaTo",
+  "hueFrom",
+  "hueTo",
+  "swatchFrom",
+  "swatchTo",
+  "marked",
+];
+
 const CHANGE_REPEATS: [string, string, "from" | "to"][] = [
   ["chromaFrom", "C", "from"],
   ["chromaTo", "C", "to"],
@@ -456,15 +478,36 @@ function unpackChange(change: Json, color: Json[]): Json {
     color.find((r) => r.illuminant === illuminant && r.observer === change.observer);
   const rows = { from: rowOf(change.from), to: rowOf(change.to) };
   const lab = (row: Json | undefined) => row && { L: row.L, a: row.a, b: row.b };
-  const out: Json = {};
-  for (const [k, v] of Object.entries(change)) if (k !== "marked") out[k] = v;
+  const full: Json = { ...change };
   const restore = (key: string, value: unknown) => {
-    if (!(key in change) && value !== undefined) out[key] = value;
+    if (!(key in change) && value !== undefined) full[key] = value;
   };
   restore("labFrom", lab(rows.from));
   restore("labTo", lab(rows.to));
   for (const [key, colorKey, which] of CHANGE_REPEATS) restore(key, rows[which]?.[colorKey]);
-  if ("marked" in change) out.marked = change.marked;
+  // the keys in the order the analysis writes them, whichever were left out; others after
+  const out: Json = {};
+  for (const k of CHANGE_KEY_ORDER) if (k in full) out[k] = full[k];
+  for (const [k, v] of Object.entries(full)) if (!(k in out)) out[k] = v;
+  return out;
+}
+
+/**
+ * A sample with its charted curves and axes as plain lists of numbers (what
+ * `batch --plain-json` stores, for readers without crystint); values are the stored ones.
+ */
+export function plainResult(result: SampleResult): SampleResult {
+  const out: SampleResult = {
+    ...result,
+    plot: { nm: axisValues(result.plot.nm), t: curveValues(result.plot.t) },
+  };
+  if (result.bands) {
+    const c = result.bands.curve;
+    out.bands = {
+      ...result.bands,
+      curve: { nm: axisValues(c.nm), data: curveValues(c.data), model: curveValues(c.model) },
+    };
+  }
   return out;
 }
 

@@ -191,7 +191,7 @@ export class WorkerPool {
           slot,
           slot.ready
             ? `analysis took longer than ${this.#timeoutMs / 1000} s (stopped)`
-            : `the worker did not start within ${START_BUDGET_MS / 1000} s`,
+            : `the worker did not start within ${ms / 1000} s`,
         ),
       ms,
     );

@@ -9,7 +9,7 @@
  */
 import type { SampleResult } from "../analysis/sample_result.ts";
 import type { ResultsError, ResultsHeader } from "../analysis/results_document.ts";
-import { ResultsPacker, unpackSample } from "../analysis/results_packing.ts";
+import { plainResult, ResultsPacker, unpackSample } from "../analysis/results_packing.ts";
 import { ReportInputBuilder } from "../report/report_input.ts";
 import { renderReportParts } from "../report/render_report.ts";
 import { openTemp, type TempWriter, writeChunksToTemp } from "./atomic_write.ts";
@@ -75,12 +75,16 @@ export async function writeOutputs(
     await csv.write(resultsCsvHeader(extraColumns));
     const packer = new ResultsPacker();
     for await (const result of results()) {
-      const stored = plain ? result : packer.pack(result);
+      const stored = plain ? plainResult(result) : packer.pack(result);
       await json.write(`${samples === 0 ? "" : ","}\n${JSON.stringify(stored)}`);
       await csv.write(resultsCsvRows(result, extraColumns));
       samples++;
       // the page is drawn from what results.json holds, as `crystint report` reads it back
-      builder.add(plain ? result : unpackSample(stored as Record<string, unknown>, packer.shared));
+      builder.add(
+        plain
+          ? stored as SampleResult
+          : unpackSample(stored as Record<string, unknown>, packer.shared),
+      );
     }
     await json.write(
       `\n],"errors":${JSON.stringify(errors)},"manifest":${JSON.stringify(manifestNotes)}` +

@@ -66,6 +66,10 @@ export interface VarProResult {
 
 /** Newton steps take over once an LM step lowers the RSS by less than this fraction (our choice). */
 const NEWTON_BELOW = 1e-3;
+/** What a Newton step gives instead of an RSS: the Hessian is not positive definite. */
+const NOT_DEFINITE = -1;
+/** What a Newton step gives instead of an RSS: the decrement says θ is the optimum. */
+const AT_OPTIMUM = -2;
 
 /**
  * out[k] = Σᵢ cols[k·n + i]·v[vo + i] for k < count: four columns a pass, each with its own sum,
@@ -346,7 +350,9 @@ export function variableProjection(
           qq += qtd[k * m + jj]! * qtd[kk * m + jj]!;
           zz += zs[k * m + jj]! * zs[kk * m + jj]!;
         }
-        const t = ck * ckk * (dd - qq) + dotR[k]! * dotR[kk]! * zz;
+        let t = ck * ckk * (dd - qq) + dotR[k]! * dotR[kk]! * zz;
+        // ‖P⊥dₖ‖² by difference can round below zero where dₖ lies almost inside span(A)
+        if (kk === k && t < 0) t = 0;
         jtj[k * q + kk] = t;
         jtj[kk * q + k] = t;
       }
@@ -382,15 +388,16 @@ export function variableProjection(
   let newton = false, newtonBelow = NEWTON_BELOW;
   /** Whether phi, dphi and a hold the basis at θ (a rejected trial overwrites them). */
   let basisAtTheta = true;
-  /** One Newton step from θ (phi, a, jac and the solver state at θ); the RSS it reaches, or NaN. */
+  /**
+   * One Newton step from θ (phi, a, jac and the solver state at θ): the RSS its trial reaches
+   * (the trial then in `trial` and `spare`), NOT_DEFINITE when the Hessian is not positive
+   * definite (no trial made), or AT_OPTIMUM when the Newton decrement is below the tolerance.
+   * As in the LM steps, a parameter at a bound is held only while the gradient pushes it out.
+   */
   const newtonStep = (s: LinearSolve): number => {
     model.curvature!(theta, phi, d2phi!);
     let f = 0;
-    for (let k = 0; k < q; k++) {
-      if (theta[k]! > (lower?.[k] ?? -Infinity) && theta[k]! < (upper?.[k] ?? Infinity)) {
-        freeIdx[f++] = k;
-      }
-    }
+    for (let k = 0; k < q; k++) if (!atBound(k, theta[k]!, jtr[k]!)) freeIdx[f++] = k;
     for (let j = 0; j < m; j++) if (s.ok[j]) freeIdx[f++] = q + j;
     const res = s.res, cs = s.c;
     // the columns of M (weighted ∂model/∂p): cⱼ·dₖ for θₖ, aⱼ for cⱼ
@@ -427,12 +434,12 @@ export function variableProjection(
         if (v !== u) hess[v * f + u] = hess[u * f + v]!;
       }
     }
-    if (!dampedSolve(hess, grad, f, 0, hl, delta)) return NaN;
+    if (!dampedSolve(hess, grad, f, 0, hl, delta)) return NOT_DEFINITE;
     // the Newton decrement gᵀH⁻¹g is the decrease of the RSS the step predicts (Boyd &
     // Vandenberghe, Convex Optimization, 2004, §9.5.1): below the tolerance θ is the optimum
     let decrement = 0;
     for (let u = 0; u < f; u++) decrement += grad[u]! * delta[u]!;
-    if (decrement >= 0 && decrement < tolerance * rss) return Infinity;
+    if (decrement >= 0 && decrement < tolerance * rss) return AT_OPTIMUM;
     trial.set(theta);
     for (let u = 0; u < f; u++) {
       if (freeIdx[u]! < q) trial[freeIdx[u]!] = theta[freeIdx[u]!]! + delta[u]!;
@@ -442,16 +449,16 @@ export function variableProjection(
   };
   while (iterations < maxIterations && q > 0) {
     iterations++;
-    let improved = false, relative = Infinity, stepSmall = false;
+    let improved = false, relative = Infinity, stepSmall = false, solved = false;
     if (newton) {
       const rssTrial = newtonStep(current);
-      if (rssTrial === Infinity) {
+      if (rssTrial === AT_OPTIMUM) {
         converged = true;
         break;
       }
-      if (Number.isNaN(rssTrial)) newtonBelow /= 10; // not positive definite: not yet near
-      else basisAtTheta = false;
-      if (rssTrial < rss) {
+      if (rssTrial === NOT_DEFINITE) newtonBelow /= 10; // not near enough yet
+      else basisAtTheta = false; // the trial overwrote the basis
+      if (rssTrial >= 0 && rssTrial < rss) {
         basisAtTheta = true;
         relative = (rss - rssTrial) / Math.max(rss, 1e-300);
         theta.set(trial);
@@ -483,6 +490,7 @@ export function variableProjection(
         nu *= 2;
         continue;
       }
+      solved = true;
       let predicted = 0;
       stepSmall = true;
       for (let k = 0; k < q; k++) {
@@ -509,8 +517,9 @@ export function variableProjection(
       if (lambda > 1e14 || stepSmall) break;
     }
     if (!improved) {
-      // no step lowers the RSS at any damping: a (local) optimum
-      converged = true;
+      // no step lowers the RSS at any damping: a (local) optimum (unless no damped system
+      // could even be solved, which says nothing about the point)
+      converged = solved;
       break;
     }
     jacobian(current);

@@ -71,6 +71,8 @@ describe("curves as step text, and the older forms", () => {
       expect(Array.isArray(packed)).toBe(false);
       expect(curveValues(packed)).toEqual(rounded);
     }
+    // values too large for safe integer steps at 5 decimals stay a list (no throw)
+    expect(packSteps([1e12, -3e11, 5], 5)).toEqual([1e12, -3e11, 5]);
     // a smooth curve takes steps of steps (shorter than plain steps)
     expect((packSteps(smooth.map((v) => roundTo(v, 5)), 5) as TextCurve).order).toBeGreaterThan(1);
   });

@@ -87,10 +87,18 @@ describe("results.json packing (lib/analysis/results_packing.ts)", () => {
       // the colour rows keep every key, in their order (the colour-row contract)
       back.color.forEach((row, j) => expect(Object.keys(row)).toEqual(Object.keys(r.color[j]!)));
       expect(Object.keys(back.provenance)).toEqual(Object.keys(r.provenance));
+      expect(Object.keys(back.change!)).toEqual(Object.keys(r.change!));
       expect(Object.keys(back.bands!.assignments[0]!)).toEqual(
         Object.keys(r.bands!.assignments[0]!),
       );
     });
+    // with chromatic adaptation the change keeps some of its repeats: same keys, same order
+    const adapted = analyseSample(slab(4), "lot/slab-4.csv", {
+      ...SETTINGS,
+      change: { ...SETTINGS.change, adapt: "cat16" },
+    });
+    const change = roundTrip([adapted]).doc.samples[0]!.change!;
+    expect(Object.keys(change)).toEqual(Object.keys(adapted.change!));
     // the samples exercise every packed part
     expect(results[0]!.bands!.assignments.length).toBeGreaterThan(0);
     expect(results[0]!.series!.points.length).toBeGreaterThan(2);

@@ -24,6 +24,11 @@ describe("batch --plain-json", () => {
       expect(Array.isArray(s.color)).toBe(true);
       for (const row of s.color) expect(Object.keys(row)).toEqual(expect.arrayContaining(ROW_KEYS));
       expect(Array.isArray(s.bands.bands)).toBe(true);
+      // the charted curves and their axes are lists of numbers too
+      for (const list of [s.plot.nm, s.plot.t, s.bands.curve.nm, s.bands.curve.data]) {
+        expect(Array.isArray(list) && list.every((v: unknown) => typeof v === "number")).toBe(true);
+      }
+      expect(s.plot.t.length).toBe(s.plot.nm.length);
     }
     // the packed file holds the same samples, to its 9 significant digits
     const packed = await readResultsJson(`${packedOut}/results.json`);

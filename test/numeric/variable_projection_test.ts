@@ -251,6 +251,21 @@ describe("variableProjection() with exact second derivatives (Newton steps near 
         }
         : {}),
     });
+    // bounds as LM treats them: held where the optimum lies beyond the bound, free where it
+    // lies inside, however close (the certified b2 is 5.5015643181e-4)
+    const beyond = variableProjection(MISRA_Y, misra(true), Float64Array.of(1e-4), {
+      upper: [4e-4],
+    });
+    expect(beyond.held[0]).toBe(true);
+    expect(beyond.nonlinear[0]).toBe(4e-4);
+    for (const [lower, start] of [[5.5e-4, 7e-4], [5.5015e-4, 2e-3], [5.4e-4, 5.4e-4]]) {
+      const inside = variableProjection(MISRA_Y, misra(true), Float64Array.of(start!), {
+        lower: [lower!],
+        tolerance: 1e-15,
+      });
+      expect(inside.held[0]).toBe(false);
+      expect(inside.nonlinear[0]! / 5.5015643181e-4).toBeCloseTo(1, 9);
+    }
     for (const b2 of [1e-4, 5e-4]) {
       const plain = variableProjection(MISRA_Y, misra(false), Float64Array.of(b2), {
         tolerance: 1e-15,
