@@ -136,6 +136,58 @@ function subtractColumns(
   }
 }
 
+/**
+ * The n-long buffers of a fit, kept between fits of the same size: a batch fits thousands of
+ * spectra of one grid, and fresh buffers for each would leave their memory to the collector
+ * (typed-array stores live outside the JS heap, where V8 lets tens of MB pile up per worker).
+ * Fits run one at a time in a thread, so one set per size is enough.
+ */
+class Workspace {
+  readonly sw: Float64Array;
+  readonly b: Float64Array;
+  readonly phi: Float64Array;
+  readonly dphi: Float64Array;
+  readonly a: Float64Array;
+  readonly jac: Float64Array;
+  readonly solvers: [LinearSolve, LinearSolve];
+  #curvature = new Float64Array(0);
+  #columns = new Float64Array(0);
+  constructor(n: number, m: number, q: number) {
+    this.sw = new Float64Array(n);
+    this.b = new Float64Array(n);
+    this.phi = new Float64Array(n * m);
+    this.dphi = new Float64Array(n * q);
+    this.a = new Float64Array(n * m);
+    this.jac = new Float64Array(n * q);
+    this.solvers = [new LinearSolve(n, m), new LinearSolve(n, m)];
+  }
+  /** A zeroed buffer for the second derivatives, of this length. */
+  curvature(length: number): Float64Array {
+    if (this.#curvature.length !== length) this.#curvature = new Float64Array(length);
+    else this.#curvature.fill(0);
+    return this.#curvature;
+  }
+  /** A buffer for the columns of the Newton system, of at least this length. */
+  columns(length: number): Float64Array {
+    if (this.#columns.length < length) this.#columns = new Float64Array(length);
+    return this.#columns;
+  }
+}
+
+/** Workspaces by size (a few sizes per run: the number of bands and terms varies). */
+const WORKSPACES = new Map<string, Workspace>();
+
+function workspaceFor(n: number, m: number, q: number): Workspace {
+  const key = `${n}/${m}/${q}`;
+  let w = WORKSPACES.get(key);
+  if (!w) {
+    if (WORKSPACES.size >= 32) WORKSPACES.clear();
+    w = new Workspace(n, m, q);
+    WORKSPACES.set(key, w);
+  }
+  return w;
+}
+
 /** Linear least squares for fixed θ by Gram–Schmidt QR with selective reorthogonalisation. */
 class LinearSolve {
   readonly q: Float64Array;
@@ -285,21 +337,21 @@ export function variableProjection(
     throw new RangeError(`Cannot fit ${p} parameters to ${n} points: need more points`);
   }
   const { maxIterations = 200, tolerance = 1e-10, lower, upper } = options;
-  const sw = new Float64Array(n);
+  const work = workspaceFor(n, m, q);
+  const { sw, b, phi, dphi, a, jac } = work;
   for (let i = 0; i < n; i++) sw[i] = Math.sqrt(options.weights ? options.weights[i]! : 1);
-  const b = new Float64Array(n);
   for (let i = 0; i < n; i++) b[i] = sw[i]! * y[i]!;
   const col = Int32Array.from({ length: q }, (_, k) => model.columnOf[k]!);
-  const phi = new Float64Array(n * m), dphi = new Float64Array(n * q);
-  const a = new Float64Array(n * m);
-  const jac = new Float64Array(n * q);
+  // a model's basis may rely on entries it does not write being zero
+  phi.fill(0);
+  dphi.fill(0);
   const jtj = new Float64Array(q * q), jtr = new Float64Array(q);
   const sys = new Float64Array(q * q), rhs = new Float64Array(q);
   const l = new Float64Array(q * q), step = new Float64Array(q);
   const z = new Float64Array(m), qtd = new Float64Array(q * m), zs = new Float64Array(q * m);
   const dotR = new Float64Array(q), gram = new Float64Array(q);
   const theta = Float64Array.from(start), trial = new Float64Array(q);
-  const solver = new LinearSolve(n, m), trialSolver = new LinearSolve(n, m);
+  const solver = work.solvers[0], trialSolver = work.solvers[1];
   const clamp = (v: Float64Array) => {
     for (let k = 0; k < q; k++) {
       if (lower && v[k]! < lower[k]!) v[k] = lower[k]!;
@@ -378,12 +430,12 @@ export function variableProjection(
   for (let k = 0; k < q; k++) {
     for (let kk = k; kk < q; kk++) if (col[k] === col[kk]) pairs.push([k, kk]);
   }
-  const d2phi = model.curvature ? new Float64Array(n * pairs.length) : undefined;
+  const d2phi = model.curvature ? work.curvature(n * pairs.length) : undefined;
   const size = q + m;
   const hess = new Float64Array(size * size), grad = new Float64Array(size);
   const hl = new Float64Array(size * size), delta = new Float64Array(size);
   const freeIdx = new Int32Array(size);
-  const mcols = d2phi ? new Float64Array(size * n) : new Float64Array(0),
+  const mcols = d2phi ? work.columns(size * n) : new Float64Array(0),
     row = new Float64Array(size);
   let newton = false, newtonBelow = NEWTON_BELOW;
   /** Whether phi, dphi and a hold the basis at θ (a rejected trial overwrites them). */
