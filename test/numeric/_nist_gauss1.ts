@@ -4,7 +4,7 @@
  * y = b1·exp(−b2·x) + b3·exp(−(x − b4)²/b5²) + b6·exp(−(x − b7)²/b8²), with NIST's two starting
  * points and certified values. The certified values are those NIST publishes for the data set
  * (checked against two independent copies); the data reproduce them (test in
- * variable_projection_test.ts), which also checks this transcription.
+ * variable_projection_test.ts), which also checks this copy of the data.
  *
  * @module
  */
