@@ -6,6 +6,7 @@ import {
   variableProjection,
 } from "../../lib/numeric/mod.ts";
 import { GAUSS1_CERTIFIED, GAUSS1_CERTIFIED_RSS, GAUSS1_STARTS, GAUSS1_Y } from "./_nist_gauss1.ts";
+import { curvatureAgreement } from "../_curvature_check.ts";
 import { seededNormal } from "../_random.ts";
 
 // NIST Statistical Reference Datasets, Nonlinear Regression, Misra1a (lower difficulty):
@@ -188,28 +189,10 @@ describe("variableProjection() with exact second derivatives (Newton steps near 
   it("the Gauss1 second derivatives agree with central differences of the first", () => {
     const model = gauss1(true);
     const t = Float64Array.from([0.0105, 67.5, 23.1, 179, 18.4]);
-    const phi = new Float64Array(3 * n), d2 = new Float64Array(7 * n);
-    const up = new Float64Array(5 * n),
-      down = new Float64Array(5 * n),
-      scratch = new Float64Array(3 * n);
-    model.basis(t, phi);
-    model.curvature!(t, phi, d2);
     const pairs = [[0, 0], [1, 1], [1, 2], [2, 2], [3, 3], [3, 4], [4, 4]];
-    pairs.forEach(([k, l], p) => {
-      const h = 1e-6 * Math.abs(t[l!]!);
-      const tp = t.slice(), tm = t.slice();
-      tp[l!] = tp[l!]! + h;
-      tm[l!] = tm[l!]! - h;
-      model.basis(tp, scratch, up);
-      model.basis(tm, scratch, down);
-      let worst = 0, scale = 0;
-      for (let i = 0; i < n; i++) {
-        const fd = (up[k! * n + i]! - down[k! * n + i]!) / (2 * h);
-        worst = Math.max(worst, Math.abs(fd - d2[p * n + i]!));
-        scale = Math.max(scale, Math.abs(d2[p * n + i]!));
-      }
+    for (const { worst, scale } of curvatureAgreement(model, t, pairs, n)) {
       expect(worst).toBeLessThan(1e-6 * scale);
-    });
+    }
   });
 
   it("Gauss1 (NIST StRD) from both NIST starts: certified b1…b8 and RSS, with and without the Newton steps", () => {
