@@ -90,7 +90,10 @@ export interface BandFit {
 
 /** Options of {@linkcode fitBandsCm1}. */
 export interface FitOptions {
-  /** Starting bands (heights are solved exactly, only centre and FWHM are used); detected when omitted. */
+  /**
+   * Starting bands (heights are solved exactly, only centre and FWHM are used); detected when
+   * omitted. The fitted bands come back in the order of these starts; detected ones by centre.
+   */
   candidates?: BandCandidate[];
   /** Baseline terms (default b0, b1 and the λ⁻⁴ scatter term). */
   baselineTerms?: BaselineTerm[];
@@ -359,7 +362,7 @@ export function fitBandsCm1(
     }
   }
   if (!best) throw new RangeError(`Cannot fit bands: only ${n} usable points`);
-  return toBandFit(best.fit, data, ordinate, tried, best.fit);
+  return toBandFit(best.fit, data, ordinate, tried, best.fit, !options.candidates);
 }
 
 function toBandFit(
@@ -368,6 +371,7 @@ function toBandFit(
   ordinate: BandFit["ordinate"],
   tried: { fit: ModelFit; aic: number; bic: number }[],
   chosen: ModelFit,
+  byCentre: boolean,
 ): BandFit {
   const n = data.x.length;
   let rss = 0, noise = 0;
@@ -378,13 +382,16 @@ function toBandFit(
     noise += data.sigma[i]! ** 2;
   }
   const structure = residualStructure(data.x, residual, data.sigma);
+  // detected bands are listed by centre (a fit can carry a band past its neighbour from where
+  // it started); given candidates keep the caller's order, so results match them by index
+  const bands = byCentre ? [...fit.bands].sort((a, b) => a.centerCm1 - b.centerCm1) : fit.bands;
   const warnings: string[] = [];
   if (!fit.converged) {
     warnings.push(
       `fit did not converge after ${fit.iterations} iterations: centres and widths are not reliable`,
     );
   }
-  for (const b of fit.bands) {
+  for (const b of bands) {
     if (b.held?.includes("fwhmCm1")) {
       warnings.push(
         `band near ${b.centerNm.toFixed(1)} nm: width held at a bound (${
@@ -402,7 +409,7 @@ function toBandFit(
     );
   }
   return {
-    bands: fit.bands,
+    bands,
     baseline: fit.baseline,
     residualRms: Math.sqrt(rss / n),
     noiseSigma: Math.sqrt(noise / n),

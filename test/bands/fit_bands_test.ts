@@ -90,6 +90,26 @@ describe("fitBandsCm1() on synthetic spectra (known Gaussian bands in wavenumber
   });
 });
 
+describe("fitBandsCm1(): order of the bands it returns", () => {
+  it("detected bands come back by centre; given candidates in the order given", () => {
+    const { x, y } = synthetic(CASES[2]!, 4);
+    const auto = fitBandsCm1(x, y);
+    const centres = auto.bands.map((b) => b.centerCm1);
+    expect(centres).toEqual([...centres].sort((a, b) => a - b));
+    // starts given high to low: the caller matches the results to them by index
+    const given = [25400, 18100, 16900, 16100].map((c) => ({
+      centerCm1: c,
+      fwhmCm1: c > 20000 ? 2500 : 900,
+      height: 1,
+      significance: 10,
+    }));
+    const fit = fitBandsCm1(x, y, { candidates: given });
+    fit.bands.forEach((b, i) =>
+      expect(Math.abs(b.centerCm1 - given[i]!.centerCm1)).toBeLessThan(300)
+    );
+  });
+});
+
 describe("band catalogue and assignment", () => {
   it("every entry carries a citation and a status (published or from memory)", () => {
     expect(BAND_CATALOGUE.length).toBeGreaterThan(20);
