@@ -170,6 +170,8 @@ export function joinSheet(
   files: string[],
   relative: Map<string, string> = new Map(),
 ): SheetJoin {
+  // no sheet: nothing to index (a batch of 100,000 files would build four maps for nothing)
+  if (rows.length === 0) return { rows: new Map(), ambiguous: new Map(), unused: [] };
   const byRel = new Map<string, string[]>();
   const byBase = new Map<string, string[]>();
   const byStem = new Map<string, string[]>();
