@@ -63,6 +63,9 @@ if (!havePeer) console.log("spec2cie not installed (Debian argyll): end-to-end p
 
 const colorArgs = [
   "run",
+  // as `deno task crystint` runs it: young generations of 1 MB (V8 otherwise grows them to
+  // tens of MB while the rows stream through)
+  "--v8-flags=--max-semi-space-size=1",
   "--allow-read",
   main,
   "color",
