@@ -32,15 +32,40 @@ function bitLength(z: number): number {
   return 31 + bitLength(Math.floor(z / 2 ** 31));
 }
 
-/** The width that makes the list shortest, and its bits. */
+/**
+ * The width that makes the list shortest, and its bits, in one pass over the list: a number
+ * of L bits takes w bits at every width w > L; at w = L it is the escape itself when all its
+ * bits are ones (then its rest is 0, of 0 bits); below, it is escaped, and its rest
+ * z − (2^w − 1) has r + 1 at w = L − 1 (r: z without its top bit), and at w ≤ L − 2 has L − 1
+ * bits when r + 1 < 2^w, else L. The escapes' bits are summed per width by differences.
+ */
 function bestWidth(zigzag: number[]): { width: number; bits: number } {
   let longest = 1;
   for (const z of zigzag) longest = Math.max(longest, bitLength(z));
-  let width = 1, bits = Infinity;
-  for (let w = 1; w <= Math.min(MAX_WIDTH, longest); w++) {
-    const escape = 2 ** w - 1;
-    let b = 0;
-    for (const z of zigzag) b += z < escape ? w : w + LENGTH_BITS + bitLength(z - escape);
+  const top = Math.min(MAX_WIDTH, longest);
+  // escape bits at each width: `ranges` by differences (added over w = from … to), `at` one width
+  const ranges = new Float64Array(top + 2), at = new Float64Array(top + 1);
+  for (const z of zigzag) {
+    const length = bitLength(z);
+    if (length === 0) continue;
+    if (length <= top && z === 2 ** length - 1) at[length] = at[length]! + LENGTH_BITS;
+    if (length < 2) continue;
+    const rPlus1 = z - 2 ** (length - 1) + 1;
+    if (length - 1 <= top) at[length - 1] = at[length - 1]! + LENGTH_BITS + bitLength(rPlus1);
+    const last = Math.min(length - 2, top);
+    if (last < 1) continue;
+    ranges[1] = ranges[1]! + LENGTH_BITS + length;
+    ranges[last + 1] = ranges[last + 1]! - (LENGTH_BITS + length);
+    const shorter = bitLength(rPlus1); // from this width on the rest has one bit fewer
+    if (shorter <= last) {
+      ranges[Math.max(shorter, 1)] = ranges[Math.max(shorter, 1)]! - 1;
+      ranges[last + 1] = ranges[last + 1]! + 1;
+    }
+  }
+  let width = 1, bits = Infinity, escapes = 0;
+  for (let w = 1; w <= top; w++) {
+    escapes += ranges[w]!;
+    const b = w * zigzag.length + escapes + at[w]!;
     if (b < bits) [width, bits] = [w, b];
   }
   return { width, bits };

@@ -601,13 +601,24 @@ export function variableProjection(
   for (let k = 0; k < q; k++) if (!held[k]) free.push(k);
   for (let j = 0; j < m; j++) if (current.ok[j]) free.push(q + j);
   const f = free.length;
-  const column = (idx: number, i: number) =>
-    idx < q ? sw[i]! * c[col[idx]!]! * dphi[idx * n + i]! : sw[i]! * phi[(idx - q) * n + i]!;
+  // the columns written out once (the same products as term by term, so the same sums)
+  const columns = work.columns(f * n);
+  for (let u = 0; u < f; u++) {
+    const idx = free[u]!, o = u * n;
+    if (idx < q) {
+      const cj = c[col[idx]!]!, d = idx * n;
+      for (let i = 0; i < n; i++) columns[o + i] = sw[i]! * cj * dphi[d + i]!;
+    } else {
+      const d = (idx - q) * n;
+      for (let i = 0; i < n; i++) columns[o + i] = sw[i]! * phi[d + i]!;
+    }
+  }
   const info = new Float64Array(f * f);
   for (let u = 0; u < f; u++) {
     for (let v = 0; v <= u; v++) {
+      const ou = u * n, ov = v * n;
       let t = 0;
-      for (let i = 0; i < n; i++) t += column(free[u]!, i) * column(free[v]!, i);
+      for (let i = 0; i < n; i++) t += columns[ou + i]! * columns[ov + i]!;
       info[u * f + v] = t;
       info[v * f + u] = t;
     }
