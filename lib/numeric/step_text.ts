@@ -26,10 +26,13 @@ const LENGTH_BITS = 6;
 /** Widest fixed width tried (our choice: wider lists are rare and still written exactly). */
 const MAX_WIDTH = 24;
 
+/** 2^k for k = 0 … 53 (a table: a power with a variable exponent is a call). */
+const POW2 = Float64Array.from({ length: 54 }, (_, k) => 2 ** k);
+
 /** Bit length of a non-negative safe integer (0 for 0). */
 function bitLength(z: number): number {
-  if (z < 2 ** 31) return 32 - Math.clz32(z);
-  return 31 + bitLength(Math.floor(z / 2 ** 31));
+  if (z < 2147483648) return 32 - Math.clz32(z);
+  return 31 + bitLength(Math.floor(z / 2147483648));
 }
 
 /**
@@ -48,9 +51,9 @@ function bestWidth(zigzag: number[]): { width: number; bits: number } {
   for (const z of zigzag) {
     const length = bitLength(z);
     if (length === 0) continue;
-    if (length <= top && z === 2 ** length - 1) at[length] = at[length]! + LENGTH_BITS;
+    if (length <= top && z === POW2[length]! - 1) at[length] = at[length]! + LENGTH_BITS;
     if (length < 2) continue;
-    const rPlus1 = z - 2 ** (length - 1) + 1;
+    const rPlus1 = z - POW2[length - 1]! + 1;
     if (length - 1 <= top) at[length - 1] = at[length - 1]! + LENGTH_BITS + bitLength(rPlus1);
     const last = Math.min(length - 2, top);
     if (last < 1) continue;
@@ -108,38 +111,56 @@ export function textLengthOf(values: ArrayLike<number>): number {
  */
 export function integersToText(values: ArrayLike<number>): string {
   const zigzag = zigzagOf(values);
-  const { width } = bestWidth(zigzag);
-  const out: string[] = [ALPHABET[width]!];
-  let acc = 0, pending = 0; // pending bits (fewer than 6 between writes) held in acc
-  const putSmall = (value: number, bits: number) => { // bits ≤ 24: acc stays below 2³⁰
-    acc = (acc << bits) | value;
-    pending += bits;
-    while (pending >= 6) {
-      pending -= 6;
-      out.push(ALPHABET[(acc >> pending) & 63]!);
-    }
-    acc &= (1 << pending) - 1;
-  };
-  const put = (value: number, bits: number) => {
-    for (; bits > 24; bits -= 24) {
-      const high = Math.floor(value / 2 ** (bits - 24));
-      putSmall(high, 24);
-      value -= high * 2 ** (bits - 24);
-    }
-    putSmall(value, bits);
-  };
-  const escape = 2 ** width - 1;
+  const { width, bits } = bestWidth(zigzag);
+  const writer = new BitWriter(1 + Math.ceil(bits / 6));
+  writer.codes[writer.written++] = CODES[width]!;
+  const escape = POW2[width]! - 1;
   for (const z of zigzag) {
-    if (z < escape) put(z, width);
+    if (z < escape) writer.putSmall(z, width);
     else {
       const rest = z - escape, length = bitLength(rest);
-      put(escape, width);
-      put(length, LENGTH_BITS);
-      put(rest, length);
+      writer.put(escape, width);
+      writer.putSmall(length, LENGTH_BITS);
+      writer.put(rest, length);
     }
   }
-  if (pending > 0) put(2 ** (6 - pending) - 1, 6 - pending);
-  return out.join("");
+  if (writer.pending > 0) writer.putSmall(POW2[6 - writer.pending]! - 1, 6 - writer.pending);
+  return ASCII.decode(writer.codes.subarray(0, writer.written));
+}
+
+/** The alphabet's character codes. */
+const CODES = Uint8Array.from(ALPHABET, (c) => c.charCodeAt(0));
+
+const ASCII = new TextDecoder("latin1");
+
+/** Bits into alphabet characters, six a character; fewer than six are held between writes. */
+class BitWriter {
+  readonly codes: Uint8Array;
+  written = 0;
+  acc = 0;
+  pending = 0;
+  constructor(length: number) {
+    this.codes = new Uint8Array(length);
+  }
+  /** Writes value in bits ≤ 24 bits (acc stays below 2³⁰). */
+  putSmall(value: number, bits: number): void {
+    let acc = (this.acc << bits) | value, pending = this.pending + bits;
+    while (pending >= 6) {
+      pending -= 6;
+      this.codes[this.written++] = CODES[(acc >> pending) & 63]!;
+    }
+    this.acc = acc & ((1 << pending) - 1);
+    this.pending = pending;
+  }
+  /** Writes value in any number of bits (up to 53). */
+  put(value: number, bits: number): void {
+    for (; bits > 24; bits -= 24) {
+      const high = Math.floor(value / POW2[bits - 24]!);
+      this.putSmall(high, 24);
+      value -= high * POW2[bits - 24]!;
+    }
+    this.putSmall(value, bits);
+  }
 }
 
 /**
@@ -148,47 +169,67 @@ export function integersToText(values: ArrayLike<number>): string {
  * @throws {SyntaxError} When the text holds a character outside the alphabet or ends mid-number.
  */
 export function textToIntegers(text: string): number[] {
-  const digits: number[] = [];
+  const digits = new Uint8Array(text.length);
   for (let i = 0; i < text.length; i++) {
     const c = text.charCodeAt(i);
     const k = c < 128 ? INDEX[c]! : -1;
     if (k < 0) {
       throw new SyntaxError(`Cannot read step text: character ${JSON.stringify(text[i])} at ${i}`);
     }
-    digits.push(k);
+    digits[i] = k;
   }
-  const width = digits[0];
-  if (width === undefined) return [];
+  if (digits.length === 0) return [];
+  const width = digits[0]!;
   if (width < 1 || width > 53) throw new SyntaxError(`Cannot read step text: width ${width}`);
-  const total = 6 * (digits.length - 1);
-  let acc = 0, held = 0, next = 1; // bits read ahead, held in acc
-  const takeSmall = (bits: number) => { // bits ≤ 24: acc stays below 2³⁰
-    while (held < bits) {
-      acc = (acc << 6) | digits[next++]!;
-      held += 6;
-    }
-    held -= bits;
-    const v = (acc >> held) & ((1 << bits) - 1);
-    acc &= (1 << held) - 1;
-    return v;
-  };
-  const take = (bits: number) => {
-    let v = 0;
-    for (; bits > 24; bits -= 24) v = v * 2 ** 24 + takeSmall(24);
-    return v * 2 ** bits + takeSmall(bits);
-  };
-  const left = () => total - (6 * (next - 1) - held);
-  const escape = 2 ** width - 1;
+  const reader = new BitReader(digits);
+  const escape = POW2[width]! - 1;
   const out: number[] = [];
-  while (left() >= width) {
-    let z = take(width);
+  while (reader.left() >= width) {
+    let z = width <= 24 ? reader.takeSmall(width) : reader.take(width);
     if (z === escape) {
-      if (left() < LENGTH_BITS) break; // the fill of the last character
-      const length = take(LENGTH_BITS);
-      if (left() < length) throw new SyntaxError("Cannot read step text: it ends mid-number");
-      z += take(length);
+      if (reader.left() < LENGTH_BITS) break; // the fill of the last character
+      const length = reader.takeSmall(LENGTH_BITS);
+      if (reader.left() < length) {
+        throw new SyntaxError("Cannot read step text: it ends mid-number");
+      }
+      z += reader.take(length);
     }
     out.push(z % 2 === 0 ? z / 2 : -(z + 1) / 2);
   }
   return out;
+}
+
+/** Alphabet indices (after the width character) read back as bits. */
+class BitReader {
+  /** Bits read ahead, held in acc. */
+  acc = 0;
+  held = 0;
+  next = 1;
+  readonly total: number;
+  constructor(readonly digits: Uint8Array) {
+    this.total = 6 * (digits.length - 1);
+  }
+  /** Bits not yet taken. */
+  left(): number {
+    return this.total - (6 * (this.next - 1) - this.held);
+  }
+  /** The next bits ≤ 24 bits (acc stays below 2³⁰). */
+  takeSmall(bits: number): number {
+    let acc = this.acc, held = this.held;
+    while (held < bits) {
+      acc = (acc << 6) | this.digits[this.next++]!;
+      held += 6;
+    }
+    held -= bits;
+    const v = (acc >> held) & ((1 << bits) - 1);
+    this.acc = acc & ((1 << held) - 1);
+    this.held = held;
+    return v;
+  }
+  /** The next bits, any number. */
+  take(bits: number): number {
+    let v = 0;
+    for (; bits > 24; bits -= 24) v = v * POW2[24]! + this.takeSmall(24);
+    return v * POW2[bits]! + this.takeSmall(bits);
+  }
 }
