@@ -64,8 +64,8 @@ if (!havePeer) console.log("spec2cie not installed (Debian argyll): end-to-end p
 const colorArgs = [
   "run",
   // as `deno task crystint` runs it: young generations of 1 MB (V8 otherwise grows them to
-  // tens of MB while the rows stream through)
-  "--v8-flags=--max-semi-space-size=1",
+  // tens of MB while the rows stream through), a full collection at 20 % heap growth
+  "--v8-flags=--max-semi-space-size=1,--heap-growing-percent=20",
   "--allow-read",
   main,
   "color",

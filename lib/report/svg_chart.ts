@@ -197,17 +197,24 @@ export class SvgDefs {
    * on the page before them ("" when nothing repeats).
    */
   resolve(text: string): { text: string; defs: string } {
+    const { texts: [filled], defs } = this.resolveAll([text]);
+    return { text: filled!, defs };
+  }
+  /** As {@linkcode SvgDefs.resolve} for texts that go on one page together, each filled apart. */
+  resolveAll(texts: string[]): { texts: string[]; defs: string } {
     const uses = new Uint32Array(this.#markup.length);
     const pattern = /<!--svg-def:(\d+)-->/g;
-    for (const m of text.matchAll(pattern)) uses[Number(m[1])]!++;
-    const filled = text.replace(pattern, (_, id: string) => {
-      const k = Number(id);
-      return uses[k]! > 1 ? `<use href="#svg-def-${k}"/>` : this.#markup[k]!;
-    });
+    for (const text of texts) for (const m of text.matchAll(pattern)) uses[Number(m[1])]!++;
+    const filled = texts.map((text) =>
+      text.replace(pattern, (_, id: string) => {
+        const k = Number(id);
+        return uses[k]! > 1 ? `<use href="#svg-def-${k}"/>` : this.#markup[k]!;
+      })
+    );
     const shared = this.#markup.map((m, k) => uses[k]! > 1 ? `<g id="svg-def-${k}">${m}</g>` : "")
       .join("");
     return {
-      text: filled,
+      texts: filled,
       defs: shared
         ? `<svg class="plot shared-defs" aria-hidden="true" focusable="false" ` +
           `xmlns="http://www.w3.org/2000/svg"><defs>${shared}</defs></svg>`

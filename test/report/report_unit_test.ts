@@ -1,6 +1,12 @@
 import { describe, it } from "node:test";
 import { expect } from "expect";
-import { escapeHtml, jsonForScript, scriptForInline } from "../../lib/report/mod.ts";
+import fc from "fast-check";
+import {
+  escapeHtml,
+  jsonForScript,
+  jsonForScriptParts,
+  scriptForInline,
+} from "../../lib/report/mod.ts";
 import { makeLot, runCli } from "../_run_cli.ts";
 
 describe("report escaping", () => {
@@ -16,6 +22,35 @@ describe("report escaping", () => {
     expect(text).not.toContain("\u2028");
     expect(JSON.parse(text)).toEqual(value);
     expect(scriptForInline("x = '</script>'")).not.toMatch(/<\/script/i);
+  });
+
+  it("property: the page data in parts joins to the same text as written whole (fast-check, seeded)", () => {
+    // the escapes as first written, one replacement after another over the whole text
+    const whole = (v: unknown) =>
+      JSON.stringify(v).replace(/</g, "\\u003c").replace(/>/g, "\\u003e").replace(/&/g, "\\u0026")
+        .replace(/\u2028/g, "\\u2028").replace(/\u2029/g, "\\u2029");
+    const text = fc.string({
+      unit: fc.constantFrom("a", "<", ">", "&", "\u2028", "\u2029", "é", '"'),
+    });
+    const leaf = fc.oneof(
+      text,
+      fc.double(),
+      fc.integer(),
+      fc.constant(null),
+      fc.constant(undefined),
+    );
+    const member = fc.oneof(
+      leaf,
+      fc.array(fc.oneof(leaf, fc.dictionary(text, leaf))),
+      fc.dictionary(fc.oneof(text, fc.nat().map(String)), fc.oneof(leaf, fc.array(leaf))),
+    );
+    fc.assert(
+      fc.property(fc.dictionary(text, member), (value) => {
+        expect(jsonForScriptParts(value).join("")).toBe(whole(value));
+        expect(jsonForScript(value)).toBe(whole(value));
+      }),
+      { seed: 41, numRuns: 400 },
+    );
   });
 });
 
