@@ -39,7 +39,7 @@ function bitLength(z: number): number {
  * The width that makes the list shortest, and its bits, in one pass over the list: a number
  * of L bits takes w bits at every width w > L; at w = L it is the escape itself when all its
  * bits are ones (then its rest is 0, of 0 bits); below, it is escaped, and its rest
- * z − (2^w − 1) has r + 1 at w = L − 1 (r: z without its top bit), and at w ≤ L − 2 has L − 1
+ * z − (2^w − 1) is r + 1 at w = L − 1 (r: z without its top bit), and at w ≤ L − 2 has L − 1
  * bits when r + 1 < 2^w, else L. The escapes' bits are summed per width by differences.
  */
 function bestWidth(zigzag: number[]): { width: number; bits: number } {
@@ -53,13 +53,13 @@ function bestWidth(zigzag: number[]): { width: number; bits: number } {
     if (length === 0) continue;
     if (length <= top && z === POW2[length]! - 1) at[length] = at[length]! + LENGTH_BITS;
     if (length < 2) continue;
-    const rPlus1 = z - POW2[length - 1]! + 1;
-    if (length - 1 <= top) at[length - 1] = at[length - 1]! + LENGTH_BITS + bitLength(rPlus1);
+    const rPlus1 = z - POW2[length - 1]! + 1, restBits = bitLength(rPlus1);
+    if (length - 1 <= top) at[length - 1] = at[length - 1]! + LENGTH_BITS + restBits;
     const last = Math.min(length - 2, top);
     if (last < 1) continue;
     ranges[1] = ranges[1]! + LENGTH_BITS + length;
     ranges[last + 1] = ranges[last + 1]! - (LENGTH_BITS + length);
-    const shorter = bitLength(rPlus1); // from this width on the rest has one bit fewer
+    const shorter = restBits; // from this width on the rest has one bit fewer
     if (shorter <= last) {
       ranges[Math.max(shorter, 1)] = ranges[Math.max(shorter, 1)]! - 1;
       ranges[last + 1] = ranges[last + 1]! + 1;
@@ -98,6 +98,53 @@ export function textLengthOf(values: ArrayLike<number>): number {
   return 1 + Math.ceil(bestWidth(zigzagOf(values)).bits / 6);
 }
 
+/** The alphabet's character codes. */
+const CODES = Uint8Array.from(ALPHABET, (c) => c.charCodeAt(0));
+
+/** Character codes to text (every code of the alphabet is below 128, so one byte a character). */
+const LATIN1 = new TextDecoder("latin1");
+
+/** Bits into alphabet characters, six a character; fewer than six are held between writes. */
+class BitWriter {
+  readonly #codes: Uint8Array;
+  #written = 0;
+  #acc = 0;
+  #pending = 0;
+  /** @param characters The exact length of the text, in characters. */
+  constructor(characters: number) {
+    this.#codes = new Uint8Array(characters);
+  }
+  /** Writes a value of at most 24 bits in `bits` bits (acc stays below 2³⁰). */
+  putSmall(value: number, bits: number): void {
+    let acc = (this.#acc << bits) | value, pending = this.#pending + bits;
+    while (pending >= 6) {
+      pending -= 6;
+      this.#codes[this.#written++] = CODES[(acc >> pending) & 63]!;
+    }
+    this.#acc = acc & ((1 << pending) - 1);
+    this.#pending = pending;
+  }
+  /** Writes a value in `bits` bits, any number up to 63. */
+  put(value: number, bits: number): void {
+    for (; bits > 24; bits -= 24) {
+      const high = Math.floor(value / POW2[bits - 24]!);
+      this.putSmall(high, 24);
+      value -= high * POW2[bits - 24]!;
+    }
+    this.putSmall(value, bits);
+  }
+  /** Fills the last character with one-bits and gives the text, which must be the length said. */
+  finish(): string {
+    if (this.#pending > 0) this.putSmall(POW2[6 - this.#pending]! - 1, 6 - this.#pending);
+    if (this.#written !== this.#codes.length) {
+      throw new Error(
+        `step text: ${this.#written} characters written, ${this.#codes.length} counted`,
+      );
+    }
+    return LATIN1.decode(this.#codes);
+  }
+}
+
 /**
  * Safe integers as text (see the module note).
  *
@@ -113,7 +160,7 @@ export function integersToText(values: ArrayLike<number>): string {
   const zigzag = zigzagOf(values);
   const { width, bits } = bestWidth(zigzag);
   const writer = new BitWriter(1 + Math.ceil(bits / 6));
-  writer.codes[writer.written++] = CODES[width]!;
+  writer.putSmall(width, 6);
   const escape = POW2[width]! - 1;
   for (const z of zigzag) {
     if (z < escape) writer.putSmall(z, width);
@@ -124,43 +171,7 @@ export function integersToText(values: ArrayLike<number>): string {
       writer.put(rest, length);
     }
   }
-  if (writer.pending > 0) writer.putSmall(POW2[6 - writer.pending]! - 1, 6 - writer.pending);
-  return ASCII.decode(writer.codes.subarray(0, writer.written));
-}
-
-/** The alphabet's character codes. */
-const CODES = Uint8Array.from(ALPHABET, (c) => c.charCodeAt(0));
-
-const ASCII = new TextDecoder("latin1");
-
-/** Bits into alphabet characters, six a character; fewer than six are held between writes. */
-class BitWriter {
-  readonly codes: Uint8Array;
-  written = 0;
-  acc = 0;
-  pending = 0;
-  constructor(length: number) {
-    this.codes = new Uint8Array(length);
-  }
-  /** Writes value in bits ≤ 24 bits (acc stays below 2³⁰). */
-  putSmall(value: number, bits: number): void {
-    let acc = (this.acc << bits) | value, pending = this.pending + bits;
-    while (pending >= 6) {
-      pending -= 6;
-      this.codes[this.written++] = CODES[(acc >> pending) & 63]!;
-    }
-    this.acc = acc & ((1 << pending) - 1);
-    this.pending = pending;
-  }
-  /** Writes value in any number of bits (up to 53). */
-  put(value: number, bits: number): void {
-    for (; bits > 24; bits -= 24) {
-      const high = Math.floor(value / POW2[bits - 24]!);
-      this.putSmall(high, 24);
-      value -= high * POW2[bits - 24]!;
-    }
-    this.putSmall(value, bits);
-  }
+  return writer.finish();
 }
 
 /**
@@ -213,7 +224,7 @@ class BitReader {
   left(): number {
     return this.total - (6 * (this.next - 1) - this.held);
   }
-  /** The next bits ≤ 24 bits (acc stays below 2³⁰). */
+  /** The next `bits` bits, at most 24 (acc stays below 2³⁰). */
   takeSmall(bits: number): number {
     let acc = this.acc, held = this.held;
     while (held < bits) {
@@ -226,7 +237,7 @@ class BitReader {
     this.held = held;
     return v;
   }
-  /** The next bits, any number. */
+  /** The next `bits` bits, any number up to 63. */
   take(bits: number): number {
     let v = 0;
     for (; bits > 24; bits -= 24) v = v * POW2[24]! + this.takeSmall(24);

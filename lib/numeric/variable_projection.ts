@@ -167,7 +167,7 @@ class Workspace {
     else this.#curvature.fill(0);
     return this.#curvature;
   }
-  /** A buffer for the columns of the Newton system, of at least this length. */
+  /** A buffer for columns of the model (the Newton system, the covariance), at least this long. */
   columns(length: number): Float64Array {
     if (this.#columns.length < length) this.#columns = new Float64Array(length);
     return this.#columns;

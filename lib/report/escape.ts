@@ -22,6 +22,7 @@ export function jsonForScript(value: unknown): string {
   return scriptSafe(JSON.stringify(value));
 }
 
+/** The characters a script element must not hold raw, and their JSON escapes. */
 const SCRIPT_UNSAFE: Record<string, string> = {
   "<": "\\u003c",
   ">": "\\u003e",
@@ -36,44 +37,64 @@ function scriptSafe(json: string): string {
 }
 
 /**
- * {@linkcode jsonForScript} of an object in parts that join to the same text: each member of
- * the object, and each item of its arrays and objects, written on its own, so a large page's data
- * is never held as one string (nor as the copies each escape would make of it).
+ * {@linkcode jsonForScript} of a value in parts that join to the same text. A plain object's
+ * members, and the items of its members that are plain arrays or plain objects, are each written
+ * on their own, so a large page's data is never held as one string (nor as the copies each escape
+ * would make of it). Anything else (a `toJSON`, a boxed primitive) is written as JSON writes it.
  */
-export function jsonForScriptParts(value: Record<string, unknown>): string[] {
+export function jsonForScriptParts(value: unknown): string[] {
+  if (!isPlainObject(value)) return [jsonForScript(value)];
   const parts: string[] = ["{"];
   let first = true;
   for (const [key, member] of Object.entries(value)) {
-    const whole = JSON.stringify(member);
-    if (whole === undefined) continue; // left out, as JSON.stringify leaves it out
-    parts.push(`${first ? "" : ","}${scriptSafe(JSON.stringify(key))}:`);
-    first = false;
-    if (Array.isArray(member)) {
-      parts.push("[");
-      member.forEach((item, i) => {
-        parts.push((i ? "," : "") + scriptSafe(JSON.stringify(item) ?? "null"));
-      });
+    const name = `${first ? "" : ","}${scriptSafe(JSON.stringify(key))}:`;
+    if (Array.isArray(member) && isPlain(member, Array.prototype)) {
+      parts.push(name, "[");
+      // by index: a gap in the array is null, as JSON writes it
+      for (let i = 0; i < member.length; i++) {
+        parts.push((i ? "," : "") + scriptSafe(memberJson(String(i), member[i]) ?? "null"));
+      }
       parts.push("]");
     } else if (isPlainObject(member)) {
-      parts.push("{");
+      parts.push(name, "{");
       let firstItem = true;
       for (const [k, item] of Object.entries(member)) {
-        const text = JSON.stringify(item);
+        const text = memberJson(k, item);
         if (text === undefined) continue;
         parts.push(`${firstItem ? "" : ","}${scriptSafe(JSON.stringify(k))}:${scriptSafe(text)}`);
         firstItem = false;
       }
       parts.push("}");
-    } else parts.push(scriptSafe(whole));
+    } else {
+      const text = memberJson(key, member);
+      if (text === undefined) continue; // left out, as JSON leaves it out
+      parts.push(name + scriptSafe(text));
+    }
+    first = false;
   }
   parts.push("}");
   return parts;
 }
 
-/** An object JSON writes member by member (no toJSON of its own, not an array). */
-function isPlainObject(v: unknown): v is Record<string, unknown> {
-  return !!v && typeof v === "object" && !Array.isArray(v) &&
+/**
+ * The JSON of a value as a member of an object or array under `key` (a `toJSON` is given that
+ * key, as JSON.stringify gives it), or undefined when JSON leaves the member out.
+ */
+function memberJson(key: string, value: unknown): string | undefined {
+  const holder = JSON.stringify({ [key]: value });
+  return holder === "{}" ? undefined : holder.slice(JSON.stringify(key).length + 2, -1);
+}
+
+/** True for an object of exactly this prototype (or none) without a `toJSON` of its own. */
+function isPlain(v: object, prototype: object): boolean {
+  const p = Object.getPrototypeOf(v);
+  return (p === prototype || p === null) &&
     typeof (v as { toJSON?: unknown }).toJSON !== "function";
+}
+
+/** An object JSON writes member by member: a plain object without `toJSON`. */
+function isPlainObject(v: unknown): v is Record<string, unknown> {
+  return !!v && typeof v === "object" && !Array.isArray(v) && isPlain(v, Object.prototype);
 }
 
 /** Library source safe to inline in a script element. */

@@ -42,6 +42,7 @@ describe("report escaping", () => {
     const member = fc.oneof(
       leaf,
       fc.array(fc.oneof(leaf, fc.dictionary(text, leaf))),
+      fc.sparseArray(leaf),
       fc.dictionary(fc.oneof(text, fc.nat().map(String)), fc.oneof(leaf, fc.array(leaf))),
     );
     fc.assert(
@@ -51,6 +52,20 @@ describe("report escaping", () => {
       }),
       { seed: 41, numRuns: 400 },
     );
+    // what JSON writes in its own way: toJSON (given the member's key), boxed primitives, dates,
+    // functions and symbols, gaps, an array with a toJSON of its own, a toJSON at the top
+    const keyed = { toJSON: (k: string) => `<${k}>` };
+    const odd: unknown[] = [
+      { a: [1, , 3], b: new Array(2), c: [keyed, keyed], d: { e: keyed }, f: keyed },
+      { s: new String("ab"), n: new Number(5), t: Object(true), d: new Date(0) },
+      { f: () => 1, y: Symbol("y"), u: undefined, list: [() => 1, Symbol("z"), undefined] },
+      { a: Object.assign([1, 2], { toJSON: () => "arr" }), n: null },
+      { toJSON: () => 1 },
+      Object.assign(Object.create(null), { a: [1], b: { c: 2 } }),
+      [1, { a: "<" }],
+      "</script>",
+    ];
+    for (const v of odd) expect(jsonForScriptParts(v).join("")).toBe(whole(v));
   });
 });
 
