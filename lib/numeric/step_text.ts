@@ -116,7 +116,8 @@ class BitWriter {
   }
   /** Writes a value of at most 24 bits in `bits` bits (acc stays below 2³⁰). */
   putSmall(value: number, bits: number): void {
-    let acc = (this.#acc << bits) | value, pending = this.#pending + bits;
+    const acc = (this.#acc << bits) | value;
+    let pending = this.#pending + bits;
     while (pending >= 6) {
       pending -= 6;
       this.#codes[this.#written++] = CODES[(acc >> pending) & 63]!;
