@@ -59,9 +59,9 @@ function bestWidth(zigzag: number[]): { width: number; bits: number } {
     if (last < 1) continue;
     ranges[1] = ranges[1]! + LENGTH_BITS + length;
     ranges[last + 1] = ranges[last + 1]! - (LENGTH_BITS + length);
-    const shorter = restBits; // from this width on the rest has one bit fewer
-    if (shorter <= last) {
-      ranges[Math.max(shorter, 1)] = ranges[Math.max(shorter, 1)]! - 1;
+    // from width restBits on, the rest has one bit fewer
+    if (restBits <= last) {
+      ranges[restBits] = ranges[restBits]! - 1;
       ranges[last + 1] = ranges[last + 1]! + 1;
     }
   }
@@ -213,29 +213,31 @@ export function textToIntegers(text: string): number[] {
 
 /** Alphabet indices (after the width character) read back as bits. */
 class BitReader {
+  readonly #digits: Uint8Array;
+  readonly #total: number;
   /** Bits read ahead, held in acc. */
-  acc = 0;
-  held = 0;
-  next = 1;
-  readonly total: number;
-  constructor(readonly digits: Uint8Array) {
-    this.total = 6 * (digits.length - 1);
+  #acc = 0;
+  #held = 0;
+  #next = 1;
+  constructor(digits: Uint8Array) {
+    this.#digits = digits;
+    this.#total = 6 * (digits.length - 1);
   }
   /** Bits not yet taken. */
   left(): number {
-    return this.total - (6 * (this.next - 1) - this.held);
+    return this.#total - (6 * (this.#next - 1) - this.#held);
   }
   /** The next `bits` bits, at most 24 (acc stays below 2³⁰). */
   takeSmall(bits: number): number {
-    let acc = this.acc, held = this.held;
+    let acc = this.#acc, held = this.#held;
     while (held < bits) {
-      acc = (acc << 6) | this.digits[this.next++]!;
+      acc = (acc << 6) | this.#digits[this.#next++]!;
       held += 6;
     }
     held -= bits;
     const v = (acc >> held) & ((1 << bits) - 1);
-    this.acc = acc & ((1 << held) - 1);
-    this.held = held;
+    this.#acc = acc & ((1 << held) - 1);
+    this.#held = held;
     return v;
   }
   /** The next `bits` bits, any number up to 63. */
